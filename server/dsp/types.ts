@@ -27,5 +27,8 @@ export interface DiscreteTf {
   den: number[];
 }
 
-export const METHOD_NAMES = ['tustin', 'prewarp', 'matched', 'zoh', 'backward-euler'] as const;
+import { METHOD_NAMES } from '../../schemas/discretize';
+
+/** The five methods, in display order (defined once, in the shared schema). */
+export { METHOD_NAMES };
 export type MethodName = (typeof METHOD_NAMES)[number];

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { compensatorSchema } from './compensator';
+import { MAX_SAMPLE_RATE_HZ, methodNameSchema } from './discretize';
 
 /**
  * Saved designs: the spec stored in every version, and the payloads of
@@ -8,10 +9,6 @@ import { compensatorSchema } from './compensator';
  * Units: roots and corner frequencies in rad/s, time constants in s, rates in Hz (DESIGN.md).
  * Imports only zod and other schemas: the server validates with it, the editor forms parse with it.
  */
-
-/** Discretization method names (the trade's terms; same list as the compute API). */
-export const DESIGN_METHODS = ['tustin', 'prewarp', 'matched', 'zoh', 'backward-euler'] as const;
-export const designMethodSchema = z.enum(DESIGN_METHODS, { error: 'unknown method' });
 
 /** Version status. Only 'draft' is written for now; review and release add the others. */
 export const VERSION_STATUSES = ['draft', 'in-review', 'approved', 'changes-requested'] as const;
@@ -71,8 +68,8 @@ export const designSpecSchema = z
     compensator: compensatorSchema,
     entry: entrySchema.optional(),
     plant: compensatorSchema.optional().describe('continuous plant; discretized by ZOH in the loop analysis'),
-    sampleRateHz: positive('sample rate').refine((v) => v <= 1e9, 'sample rate must be at most 1 GHz').describe('Hz'),
-    method: designMethodSchema.describe('the method chosen for the implementation'),
+    sampleRateHz: positive('sample rate').refine((v) => v <= MAX_SAMPLE_RATE_HZ, `sample rate must not exceed ${MAX_SAMPLE_RATE_HZ} Hz`).describe('Hz'),
+    method: methodNameSchema.describe('the method chosen for the implementation'),
     prewarpHz: positive('prewarp frequency').optional().describe('Hz, in (0, fs/2)'),
     delaySamples: z.union([z.literal(0), z.literal(1)], { error: 'computation delay is 0 or 1 sample' }).optional(),
     bandHz: positive('band').optional().describe('Hz, in (0, fs/2]; default a quarter of Nyquist'),

@@ -25,6 +25,6 @@ module.exports = {
     { ...common, displayName: 'unit', testMatch: ['<rootDir>/tests/unit/**/*.test.ts'] },
     { ...common, ...withDb, displayName: 'api', testMatch: ['<rootDir>/tests/api/**/*.test.ts'] },
     { ...common, displayName: 'c', testMatch: ['<rootDir>/tests/c/**/*.test.ts'] },
-    { ...common, ...withDb, displayName: 'browser', testMatch: ['<rootDir>/tests/browser/**/*.test.ts'] },
+    { ...common, ...withDb, globalSetup: '<rootDir>/tests/helpers/global-setup-browser.ts', displayName: 'browser', testMatch: ['<rootDir>/tests/browser/**/*.test.ts'] },
   ],
 };

@@ -9,6 +9,8 @@ export const memberSchema = z.object({
 });
 export type Member = z.infer<typeof memberSchema>;
 
+export const memberAnswerSchema = z.object({ member: memberSchema });
+
 export const memberListSchema = z.object({ members: z.array(memberSchema) });
 
 export const addMemberRequestSchema = z.object({

@@ -1,0 +1,95 @@
+import crypto from 'node:crypto';
+import session from 'express-session';
+import { ConnectSessionKnexStore } from 'connect-session-knex';
+import passport from 'passport';
+import { Strategy as LocalStrategy } from 'passport-local';
+import { csrfSync } from 'csrf-sync';
+import type { RequestHandler } from 'express';
+import type { Db } from '../db/knex';
+import { dummyVerify, verifyPassword } from './passwords';
+import { findUserByEmail, findUserById } from '../data/users';
+import type { User } from '../../schemas/auth';
+
+declare global {
+  // eslint-disable-next-line @typescript-eslint/no-namespace
+  namespace Express {
+    // the signed-in user as routes see it
+    // eslint-disable-next-line @typescript-eslint/no-empty-object-type
+    interface User {
+      id: number;
+      email: string;
+      name: string;
+    }
+  }
+}
+
+export interface SessionOptions {
+  db: Db;
+  secret: string;
+  secureCookies: boolean;
+  /** how often expired sessions are swept, ms; 0 disables the timer (tests) */
+  cleanupIntervalMs: number;
+}
+
+export const SESSION_COOKIE = 'sw.sid';
+
+export function createSessionMiddleware(opts: SessionOptions): { middleware: RequestHandler; store: ConnectSessionKnexStore } {
+  const store = new ConnectSessionKnexStore({
+    knex: opts.db,
+    tableName: 'auth_sessions',
+    createTable: false,
+    cleanupInterval: opts.cleanupIntervalMs,
+  });
+  const middleware = session({
+    name: SESSION_COOKIE,
+    secret: opts.secret,
+    store,
+    resave: false,
+    saveUninitialized: false,
+    rolling: true,
+    cookie: {
+      httpOnly: true,
+      sameSite: 'lax',
+      secure: opts.secureCookies,
+      maxAge: 1000 * 60 * 60 * 12,
+    },
+  });
+  return { middleware, store };
+}
+
+/** A passport instance of our own (not the global singleton), so that apps in one process stay apart. */
+export function createPassport(db: Db): passport.PassportStatic {
+  const p = new passport.Passport() as passport.PassportStatic;
+  p.use(
+    new LocalStrategy({ usernameField: 'email', passwordField: 'password', session: true }, (email, password, done) => {
+      (async () => {
+        const row = await findUserByEmail(db, email);
+        const ok = row ? await verifyPassword(password, row.password_hash) : await dummyVerify(password);
+        if (!row || !ok) return done(null, false);
+        return done(null, { id: row.id, email: row.email, name: row.name });
+      })().catch(done);
+    }),
+  );
+  p.serializeUser((user, done) => done(null, (user as User).id));
+  p.deserializeUser((id: unknown, done) => {
+    findUserById(db, Number(id))
+      .then((u) => done(null, u ?? false))
+      .catch(done);
+  });
+  return p;
+}
+
+/** CSRF protection (synchronizer token kept in the session). Requests carrying an API
+ *  token in `Authorization: Bearer` do not use the cookie and need no token. */
+export function createCsrf() {
+  return csrfSync({
+    getTokenFromRequest: (req) => {
+      const h = req.headers['x-csrf-token'];
+      return Array.isArray(h) ? h[0] : h;
+    },
+    skipCsrfProtection: (req) => /^Bearer\s/i.test(req.headers.authorization ?? ''),
+    errorConfig: { statusCode: 403, code: 'EBADCSRFTOKEN', message: 'invalid csrf token' },
+  });
+}
+
+export const randomSecret = () => crypto.randomBytes(32).toString('hex');

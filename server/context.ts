@@ -1,0 +1,15 @@
+import type passport from 'passport';
+import type { Config } from './config';
+import type { Db } from './db/knex';
+import type { OpenApiRegistry } from './openapi';
+import type { createCsrf } from './auth/session';
+
+/** What every route module receives from the app factory. */
+export interface AppContext {
+  db: Db;
+  config: Config;
+  registry: OpenApiRegistry;
+  passport: passport.PassportStatic;
+  csrf: ReturnType<typeof createCsrf>;
+  log: (msg: string, err?: unknown) => void;
+}

@@ -51,7 +51,7 @@ export async function boot(env = process.env, log: (l: string) => void = console
       log('Demo workspace ready (sign in as owner@example.com / samplewright-demo)');
     }
     const webDir = path.resolve(ROOT, config.WEB_DIR);
-    ensureWebBuild(webDir, log);
+    if (config.BUILD_WEB) ensureWebBuild(webDir, log);
     const { app, close } = createApp({
       db, config, sessionSecret: sessionSecret(config, dataDir), webDir, sessionCleanupMs: 15 * 60_000,
     });

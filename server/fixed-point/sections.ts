@@ -120,6 +120,7 @@ export function toSections(zpk: Zpk, extraGain = 1): SectionSpec[] {
     }
   }
   built.reverse(); // closest to the unit circle last
+  if (built.length === 0) built.push({ poles: [], zeros: [] }); // a pure gain
 
   const specs: SectionSpec[] = built.map(({ poles, zeros }) => {
     const order = (Math.max(poles.length, zeros.length, 1) as 1 | 2);

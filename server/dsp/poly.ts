@@ -1,0 +1,236 @@
+import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
+import { abs, add, cx, div, mul, sub } from './complex';
+import type { Complex } from './types';
+
+/**
+ * Real polynomials as coefficient arrays in DESCENDING powers of the variable
+ * (scipy's order): [1, 5, 6] is x² + 5x + 6. Roots are {re, im}.
+ */
+
+/** Drops leading (highest-power) zeros; keeps at least one coefficient. */
+export function trimLeading(p: readonly number[]): number[] {
+  let i = 0;
+  while (i < p.length - 1 && p[i] === 0) i++;
+  return p.slice(i);
+}
+
+/** Product of two descending polynomials. Example: polyMul([1, 1], [1, -1]) = [1, 0, -1]. */
+export function polyMul(a: readonly number[], b: readonly number[]): number[] {
+  const out = new Array<number>(a.length + b.length - 1).fill(0);
+  for (let i = 0; i < a.length; i++) for (let j = 0; j < b.length; j++) out[i + j] += a[i] * b[j];
+  return out;
+}
+
+/** Sum of two descending polynomials, aligned at the constant term. */
+export function polyAdd(a: readonly number[], b: readonly number[]): number[] {
+  const n = Math.max(a.length, b.length);
+  const out = new Array<number>(n).fill(0);
+  for (let i = 0; i < a.length; i++) out[n - a.length + i] += a[i];
+  for (let i = 0; i < b.length; i++) out[n - b.length + i] += b[i];
+  return out;
+}
+
+/** Horner evaluation at a complex point. */
+export function polyval(p: readonly number[], x: Complex): Complex {
+  let re = 0;
+  let im = 0;
+  for (const c of p) {
+    const r = re * x.re - im * x.im + c;
+    im = re * x.im + im * x.re;
+    re = r;
+  }
+  return { re, im };
+}
+
+/** Horner value and derivative at a complex point. */
+function polyvalDeriv(p: readonly number[], x: Complex): [Complex, Complex] {
+  let v = cx(0);
+  let d = cx(0);
+  for (const c of p) {
+    d = add(mul(d, x), v);
+    v = add(mul(v, x), cx(c));
+  }
+  return [v, d];
+}
+
+/**
+ * Splits roots into real ones and complex pairs (each pair given by its member with
+ * im > 0). Conjugates are matched by nearest partner; an unmatched complex root is
+ * returned in `unpaired`.
+ */
+export function splitRoots(roots: readonly Complex[]): { real: number[]; pairs: Complex[]; unpaired: Complex[] } {
+  const real: number[] = [];
+  const upper: Complex[] = [];
+  const lower: Complex[] = [];
+  for (const r of roots) {
+    if (r.im === 0) real.push(r.re);
+    else (r.im > 0 ? upper : lower).push(r);
+  }
+  const pairs: Complex[] = [];
+  const unpaired: Complex[] = [];
+  const used = new Array<boolean>(lower.length).fill(false);
+  for (const u of upper) {
+    let best = -1;
+    let bestD = Infinity;
+    lower.forEach((l, j) => {
+      if (used[j]) return;
+      const d = Math.hypot(l.re - u.re, l.im + u.im);
+      if (d < bestD) {
+        bestD = d;
+        best = j;
+      }
+    });
+    if (best < 0 || bestD > 1e-6 * Math.max(1, abs(u))) unpaired.push(u);
+    else {
+      used[best] = true;
+      const l = lower[best];
+      pairs.push({ re: (u.re + l.re) / 2, im: (u.im - l.im) / 2 });
+    }
+  }
+  lower.forEach((l, j) => {
+    if (!used[j]) unpaired.push(l);
+  });
+  return { real, pairs, unpaired };
+}
+
+/**
+ * Monic real polynomial with the given roots, descending. Conjugate pairs are multiplied
+ * as real quadratics x² − 2·Re(r)·x + |r|², so the result is exactly real.
+ * Example: polyFromRoots([{re: -2, im: 0}, {re: -3, im: 0}]) = [1, 5, 6].
+ */
+export function polyFromRoots(roots: readonly Complex[]): number[] {
+  const { real, pairs, unpaired } = splitRoots(roots);
+  let p = [1];
+  for (const r of real) p = polyMul(p, [1, -r]);
+  for (const r of pairs) p = polyMul(p, [1, -2 * r.re, r.re * r.re + r.im * r.im]);
+  if (unpaired.length > 0) {
+    // Not a real polynomial; multiply in complex arithmetic and keep the real part.
+    let c: Complex[] = [cx(1)];
+    for (const r of unpaired) {
+      const next: Complex[] = new Array(c.length + 1).fill(null).map(() => cx(0));
+      c.forEach((v, i) => {
+        next[i] = add(next[i], v);
+        next[i + 1] = sub(next[i + 1], mul(v, r));
+      });
+      c = next;
+    }
+    p = polyMul(p, c.map((v) => v.re));
+  }
+  return p;
+}
+
+/**
+ * Roots of a real polynomial (descending coefficients) as the eigenvalues of its
+ * companion matrix (ml-matrix's Hessenberg–QR EigenvalueDecomposition), after scaling the
+ * variable and balancing the matrix, then polished by Newton's method where a root is
+ * well separated (clustered roots are left as the eigenvalue solver found them: their
+ * symmetric functions, hence the coefficients they expand to, are then accurate).
+ * Zero roots from trailing zero coefficients are exact. Leading zeros are ignored.
+ * Example: polyRoots([1, 0, -1]) → [1, −1] (in some order).
+ */
+export function polyRoots(pIn: readonly number[]): Complex[] {
+  let p = trimLeading(pIn);
+  const zeroRoots: Complex[] = [];
+  while (p.length > 1 && p[p.length - 1] === 0) {
+    p = p.slice(0, -1);
+    zeroRoots.push(cx(0));
+  }
+  const n = p.length - 1;
+  if (n <= 0) return zeroRoots;
+  if (n === 1) return [cx(-p[1] / p[0]), ...zeroRoots];
+  if (n === 2) return [...quadraticRoots(p[0], p[1], p[2]), ...zeroRoots];
+  // Scale x = σ·y with σ = |p_n/p_0|^(1/n) (geometric mean of |roots|) so the companion
+  // matrix has entries of order one.
+  const sigma = Math.pow(Math.abs(p[n] / p[0]), 1 / n);
+  const q = p.map((c, i) => (c / p[0]) / Math.pow(sigma, i));
+  const m = Matrix.zeros(n, n);
+  for (let j = 0; j < n; j++) m.set(0, j, -q[j + 1]);
+  for (let i = 1; i < n; i++) m.set(i, i - 1, 1);
+  balance(m);
+  const evd = new EigenvalueDecomposition(m, { assumeSymmetric: false });
+  const re = evd.realEigenvalues;
+  const im = evd.imaginaryEigenvalues;
+  let roots: Complex[] = re.map((r, i) => cx(r * sigma, im[i] * sigma));
+  roots = roots.map((r, i) => {
+    let sep = Infinity;
+    roots.forEach((o, j) => {
+      if (j !== i) sep = Math.min(sep, abs(sub(o, r)));
+    });
+    return sep > 1e-3 * Math.max(abs(r), 1e-300) ? newtonPolish(p, r) : r;
+  });
+  return [...enforceConjugates(roots), ...zeroRoots];
+}
+
+/** Roots of a x² + b x + c without cancellation. */
+function quadraticRoots(a: number, b: number, c: number): Complex[] {
+  const disc = b * b - 4 * a * c;
+  if (disc >= 0) {
+    const s = Math.sqrt(disc);
+    const q = -0.5 * (b + (b >= 0 ? s : -s));
+    if (q === 0) return [cx(0), cx(0)];
+    return [cx(q / a), cx(c / q)];
+  }
+  const re = -b / (2 * a);
+  const im = Math.sqrt(-disc) / (2 * Math.abs(a));
+  return [cx(re, im), cx(re, -im)];
+}
+
+/** Up to a few Newton steps, kept only while |p(x)| decreases. */
+function newtonPolish(p: readonly number[], x0: Complex): Complex {
+  let x = x0;
+  let fx = abs(polyval(p, x));
+  for (let k = 0; k < 4 && fx > 0; k++) {
+    const [v, d] = polyvalDeriv(p, x);
+    if (abs(d) === 0) break;
+    const next = sub(x, div(v, d));
+    const fn = abs(polyval(p, next));
+    if (!(fn < fx)) break;
+    x = next;
+    fx = fn;
+  }
+  return x;
+}
+
+/** Real roots stay real; a complex root and its partner become exact conjugates. */
+function enforceConjugates(roots: Complex[]): Complex[] {
+  const { real, pairs, unpaired } = splitRoots(roots.map((r) => (Math.abs(r.im) <= 1e-14 * abs(r) ? cx(r.re) : r)));
+  const out: Complex[] = real.map((r) => cx(r));
+  for (const r of pairs) out.push(r, cx(r.re, -r.im));
+  return out.concat(unpaired);
+}
+
+/** Parlett–Reinsch diagonal balancing by powers of two (EISPACK balanc; in place, exact similarity). */
+function balance(m: Matrix): void {
+  const n = m.rows;
+  let noconv = true;
+  for (let iter = 0; iter < 30 && noconv; iter++) {
+    noconv = false;
+    for (let i = 0; i < n; i++) {
+      let c = 0;
+      let r = 0;
+      for (let j = 0; j < n; j++) {
+        if (j === i) continue;
+        c += Math.abs(m.get(j, i));
+        r += Math.abs(m.get(i, j));
+      }
+      if (c === 0 || r === 0) continue;
+      const s = c + r;
+      let f = 1;
+      let g = r / 2;
+      while (c < g) {
+        f *= 2;
+        c *= 4;
+      }
+      g = r * 2;
+      while (c >= g) {
+        f /= 2;
+        c /= 4;
+      }
+      if ((c + r) / f < 0.95 * s) {
+        noconv = true;
+        for (let j = 0; j < n; j++) m.set(i, j, m.get(i, j) / f);
+        for (let j = 0; j < n; j++) m.set(j, i, m.get(j, i) * f);
+      }
+    }
+  }
+}

@@ -1,5 +1,6 @@
 import { createContext, useCallback, useContext, useMemo, useState, type ReactNode } from 'react';
 import { useMutation, useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
+import { router } from 'expo-router';
 import {
   sessionInfoSchema,
   type LoginRequest,
@@ -162,6 +163,8 @@ export function useSignOut() {
     },
     onSuccess: () => {
       setCsrfToken(null);
+      // leave first, so the guard of app/(app) does not offer to come back here after the next sign-in
+      router.replace('/sign-in');
       client.setQueryData(sessionKeys.me(), null);
       forgetUserData(client);
     },

@@ -1,0 +1,1 @@
+export { AboutScreen as default } from '../../components/about/AboutScreen';

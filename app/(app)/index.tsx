@@ -1,0 +1,1 @@
+export { OverviewScreen as default } from '../../components/overview/OverviewScreen';

@@ -13,6 +13,7 @@ export const METHOD_NAMES = ['tustin', 'prewarp', 'matched', 'zoh', 'backward-eu
 export const methodNameSchema = z
   .enum(METHOD_NAMES, { error: `method must be one of ${METHOD_NAMES.join(', ')}` })
   .describe('tustin (bilinear), prewarp (bilinear prewarped at ω₀), matched (pole–zero), zoh (step invariant), backward-euler');
+export type MethodName = z.infer<typeof methodNameSchema>;
 
 /** Highest accepted sample rate, Hz. */
 export const MAX_SAMPLE_RATE_HZ = 1e7;

@@ -1,0 +1,197 @@
+import { abs, cx, div, exp, expm1, mul, scale, sub } from './complex';
+import { DspInputError } from './errors';
+import { complexDet } from './linalg';
+import { evalZpk, zpkToDiscreteTf } from './lti';
+import { polyFromRoots, polyRoots, trimLeading } from './poly';
+import { zohSs, zpkToSs } from './realization';
+import type { Complex, DiscreteTf, MethodName, Zpk } from './types';
+
+/**
+ * The five discretization methods of DESIGN.md, on roots. Input: a continuous zpk in s
+ * (rad/s), sample rate in Hz. Output: zpk in z, K·Π(z − zᵢ)/Π(z − pᵢ) with zeros at z = ∞
+ * omitted, and the difference-equation form (num/den of z⁰, z⁻¹ …, equal lengths).
+ *
+ * Example: discretizeZpk({zeros: [−3], poles: [−18], gain: 25}, 'tustin', 250)
+ *   → zeros [0.98807…], poles [0.93023…], gain 24.10…; num [24.1…, −23.8…], den [1, −0.930…].
+ */
+export interface DiscretizeOptions {
+  /** ω₀ in rad/s: required by `prewarp`, and by `matched` when the DC gain is 0 or infinite. */
+  prewarpRadPerSec?: number;
+}
+
+export interface DiscreteResult {
+  zpk: Zpk;
+  tf: DiscreteTf;
+}
+
+const realPart = (c: Complex) => c.re;
+
+/**
+ * Generalized bilinear map s = c·(z − 1)/(z + 1): each root r → (c + r)/(c − r), each zero
+ * at infinity → z = −1, gain K·Π(c − zᵢ)/Π(c − pᵢ) (from s − r = (c − r)(z − (c + r)/(c − r))/(z + 1)).
+ * c = 2/T is Tustin; c = ω₀/tan(ω₀T/2) is Tustin prewarped at ω₀.
+ */
+export function bilinearZpk(cont: Zpk, c: number): Zpk {
+  const cc = cx(c);
+  const map = (r: Complex) => div(cx(c + r.re, r.im), sub(cc, r));
+  let g = cx(cont.gain);
+  for (const z of cont.zeros) g = mul(g, sub(cc, z));
+  for (const p of cont.poles) g = div(g, sub(cc, p));
+  const extra = cont.poles.length - cont.zeros.length;
+  return {
+    zeros: [...cont.zeros.map(map), ...Array.from({ length: extra }, () => cx(-1))],
+    poles: cont.poles.map(map),
+    gain: realPart(g),
+  };
+}
+
+/**
+ * Backward Euler s = (z − 1)/(T z): each root r → 1/(1 − rT), each zero at infinity → z = 0,
+ * gain K·T^(np − nz)·Π(1 − zᵢT)/Π(1 − pᵢT) (from s − r = ((1 − rT)/T)(z − 1/(1 − rT))/z).
+ */
+export function backwardEulerZpk(cont: Zpk, periodSec: number): Zpk {
+  const T = periodSec;
+  const one = cx(1);
+  const f = (r: Complex) => sub(one, scale(r, T));
+  let g = cx(cont.gain * Math.pow(T, cont.poles.length - cont.zeros.length));
+  for (const z of cont.zeros) g = mul(g, f(z));
+  for (const p of cont.poles) g = div(g, f(p));
+  const extra = cont.poles.length - cont.zeros.length;
+  return {
+    zeros: [...cont.zeros.map((r) => div(one, f(r))), ...Array.from({ length: extra }, () => cx(0))],
+    poles: cont.poles.map((r) => div(one, f(r))),
+    gain: realPart(g),
+  };
+}
+
+/** True when a root lies exactly at s = 0. */
+const atOrigin = (r: Complex) => r.re === 0 && r.im === 0;
+
+/**
+ * Matched pole–zero: z = e^{rT} for finite roots (s = 0 → z = 1 exactly), every zero at
+ * infinity → z = −1. Gain matched at DC, K_d = K·Π zᵢ/(e^{zᵢT} − 1) · Π (e^{pᵢT} − 1)/pᵢ / 2^(np − nz)
+ * (expm1 keeps it exact at high rates); where the DC gain is 0 or infinite (a root at
+ * s = 0), |H_d(e^{jω₀T})| = |H(jω₀)| with the sign of K kept.
+ */
+export function matchedZpk(cont: Zpk, periodSec: number, prewarpRadPerSec?: number): Zpk {
+  const T = periodSec;
+  const extra = cont.poles.length - cont.zeros.length;
+  const zeros = [...cont.zeros.map((r) => exp(scale(r, T))), ...Array.from({ length: extra }, () => cx(-1))];
+  const poles = cont.poles.map((r) => exp(scale(r, T)));
+  const unit: Zpk = { zeros, poles, gain: 1 };
+  if (!cont.zeros.some(atOrigin) && !cont.poles.some(atOrigin)) {
+    let g = cx(cont.gain / Math.pow(2, extra));
+    for (const z of cont.zeros) g = mul(g, div(z, expm1(scale(z, T))));
+    for (const p of cont.poles) g = mul(g, div(expm1(scale(p, T)), p));
+    return { ...unit, gain: realPart(g) };
+  }
+  const w0 = prewarpRadPerSec;
+  if (w0 === undefined || !(w0 > 0) || !Number.isFinite(w0)) {
+    throw new DspInputError('matched pole–zero needs a prewarp frequency when the DC gain is 0 or infinite', [
+      { path: 'prewarpHz', message: 'give prewarpHz: the gain is matched there because the DC gain is 0 or infinite' },
+    ]);
+  }
+  const hc = abs(evalZpk(cont, cx(0, w0)));
+  const hd = abs(evalZpk(unit, exp(cx(0, w0 * T))));
+  if (!(hd > 0) || !Number.isFinite(hd) || !(hc > 0) || !Number.isFinite(hc)) {
+    throw new DspInputError('matched pole–zero cannot match the gain at this prewarp frequency (a root lies on it)', [
+      { path: 'prewarpHz', message: 'choose a prewarp frequency away from the roots on the imaginary axis' },
+    ]);
+  }
+  return { ...unit, gain: Math.sign(cont.gain) * (hc / hd) };
+}
+
+/**
+ * Zero-order hold (step invariant). Poles e^{pᵢT} exactly. The numerator N(z) = det(zI − Φ)·H_d(z)
+ * = det [[zI − Φ, Γ], [−C, D]] is evaluated at the n + 1 points zₖ = e^{iπ(2k+1)/(n+1)} on the
+ * unit circle (far from the poles clustered near z = 1 at high rates, so nothing cancels) and
+ * its coefficients recovered by the inverse DFT; Φ, Γ come from expm of the augmented
+ * matrix of a cascade realization. num[0] = D exactly (0 for a strictly proper H(s): the
+ * one-sample delay).
+ */
+export function zohDiscretize(cont: Zpk, periodSec: number): DiscreteResult {
+  const T = periodSec;
+  const n = cont.poles.length;
+  const poles = cont.poles.map((r) => exp(scale(r, T)));
+  const den = polyFromRoots(poles);
+  if (n === 0) {
+    return { zpk: { zeros: [], poles: [], gain: cont.gain }, tf: { num: [cont.gain], den: [1] } };
+  }
+  const ss = zpkToSs(cont);
+  const { phi, gamma } = zohSs(ss, T);
+  const values: Complex[] = [];
+  for (let k = 0; k <= n; k++) {
+    const th = (Math.PI * (2 * k + 1)) / (n + 1);
+    const zk = cx(Math.cos(th), Math.sin(th));
+    const m: Complex[][] = [];
+    for (let i = 0; i < n; i++) {
+      const row: Complex[] = phi[i].map((v, j) => (i === j ? sub(zk, cx(v)) : cx(-v)));
+      row.push(cx(gamma[i]));
+      m.push(row);
+    }
+    m.push([...ss.c.map((v) => cx(-v)), cx(ss.d)]);
+    values.push(complexDet(m));
+  }
+  // a_m (coefficient of z^m) = (1/(n+1)) Σₖ N(zₖ)·conj(zₖ)^m
+  const asc: number[] = [];
+  for (let mPow = 0; mPow <= n; mPow++) {
+    let s = 0;
+    for (let k = 0; k <= n; k++) {
+      const th = -(Math.PI * (2 * k + 1) * mPow) / (n + 1);
+      s += values[k].re * Math.cos(th) - values[k].im * Math.sin(th);
+    }
+    asc.push(s / (n + 1));
+  }
+  asc[n] = ss.d;
+  const num = asc.reverse();
+  const trimmed = trimLeading(num);
+  const zpk: Zpk = { zeros: trimmed.length > 1 || trimmed[0] !== 0 ? polyRoots(trimmed) : [], poles, gain: trimmed[0] };
+  return { zpk, tf: { num, den } };
+}
+
+/** T and the bilinear constant for a method of the Tustin family. */
+function bilinearConstant(method: 'tustin' | 'prewarp', T: number, w0?: number): number {
+  if (method === 'tustin') return 2 / T;
+  if (w0 === undefined || !(w0 > 0) || !(w0 * T < Math.PI)) {
+    throw new DspInputError('prewarp needs a prewarp frequency in (0, fs/2)', [
+      { path: 'prewarpHz', message: 'give prewarpHz in (0, fs/2)' },
+    ]);
+  }
+  return w0 / Math.tan((w0 * T) / 2);
+}
+
+/**
+ * Discretizes a continuous zpk (s in rad/s) at `sampleRateHz` by `method`.
+ * Returns zpk in z (zeros at z = ∞ omitted) and the difference-equation tf
+ * (num/den of z⁰ … z⁻ⁿ, equal lengths n + 1, leading zeros kept).
+ * Throws DspInputError when a needed ω₀ is missing.
+ */
+export function discretizeZpk(
+  cont: Zpk,
+  method: MethodName,
+  sampleRateHz: number,
+  opts: DiscretizeOptions = {},
+): DiscreteResult {
+  const T = 1 / sampleRateHz;
+  let zpk: Zpk;
+  switch (method) {
+    case 'tustin':
+    case 'prewarp':
+      zpk = bilinearZpk(cont, bilinearConstant(method, T, opts.prewarpRadPerSec));
+      break;
+    case 'backward-euler':
+      zpk = backwardEulerZpk(cont, T);
+      break;
+    case 'matched':
+      zpk = matchedZpk(cont, T, opts.prewarpRadPerSec);
+      break;
+    case 'zoh':
+      return zohDiscretize(cont, T);
+    default: {
+      const never: never = method;
+      throw new Error(`unknown method ${String(never)}`);
+    }
+  }
+  return { zpk, tf: zpkToDiscreteTf(zpk) };
+}
+

@@ -1,0 +1,138 @@
+import { splitRoots } from './poly';
+import { expm, type Mat, zeros as matZeros } from './linalg';
+import type { Zpk } from './types';
+
+/**
+ * State-space realizations x' = A x + B u, y = C x + D u (single input, single output).
+ * Built as a cascade of first- and second-order sections from the roots (never from
+ * expanded polynomials), which keeps the matrices well conditioned at any rate.
+ */
+export interface StateSpace {
+  a: Mat;
+  b: number[];
+  c: number[];
+  d: number;
+}
+
+interface Section {
+  /** poles: one real, two real, or a complex pair (given by its upper member) */
+  kind: 'real1' | 'real2' | 'pair';
+  p: number[]; // real poles (real1: [p]; real2: [p1, p2]); pair: [σ, ω]
+  num: number[]; // numerator, descending, degree ≤ section order
+}
+
+function sections(zpk: Zpk): Section[] {
+  const P = splitRoots(zpk.poles);
+  const Z = splitRoots(zpk.zeros);
+  if (P.unpaired.length || Z.unpaired.length) throw new Error('complex roots must come in conjugate pairs');
+  const realPoles = [...P.real];
+  const secs: Section[] = P.pairs.map((r) => ({ kind: 'pair' as const, p: [r.re, Math.abs(r.im)], num: [] as number[] }));
+  // Complex zero pairs need a second-order section; merge two real poles when short of pairs.
+  let pairSlots = secs.length;
+  while (pairSlots < Z.pairs.length && realPoles.length >= 2) {
+    secs.push({ kind: 'real2', p: [realPoles.shift()!, realPoles.shift()!], num: [] });
+    pairSlots++;
+  }
+  for (const p of realPoles) secs.push({ kind: 'real1', p: [p], num: [] });
+  // Numerators as factor lists, then expanded per section (degree ≤ 2).
+  const factors: number[][][] = secs.map(() => []);
+  const capacity: number[] = secs.map((s) => (s.kind === 'real1' ? 1 : 2));
+  for (const zp of Z.pairs) {
+    const k = secs.findIndex((s, i) => s.kind !== 'real1' && capacity[i] === 2);
+    factors[k].push([1, -2 * zp.re, zp.re * zp.re + zp.im * zp.im]);
+    capacity[k] = 0;
+  }
+  for (const z of Z.real) {
+    const k = capacity.findIndex((c) => c > 0);
+    factors[k].push([1, -z]);
+    capacity[k] -= 1;
+  }
+  secs.forEach((s, i) => {
+    let num = [1];
+    for (const f of factors[i]) num = mulPoly(num, f);
+    s.num = num;
+  });
+  return secs;
+}
+
+function mulPoly(a: number[], b: number[]): number[] {
+  const out = new Array<number>(a.length + b.length - 1).fill(0);
+  for (let i = 0; i < a.length; i++) for (let j = 0; j < b.length; j++) out[i + j] += a[i] * b[j];
+  return out;
+}
+
+function sectionSs(s: Section): StateSpace {
+  if (s.kind === 'real1') {
+    // (b1 s + b0)/(s − p) = b1 + (b0 + b1 p)/(s − p)
+    const [b1, b0] = s.num.length === 2 ? s.num : [0, s.num[0]];
+    const p = s.p[0];
+    return { a: [[p]], b: [1], c: [b0 + b1 * p], d: b1 };
+  }
+  const num = s.num.length === 3 ? s.num : s.num.length === 2 ? [0, ...s.num] : [0, 0, s.num[0]];
+  const b2 = num[0];
+  if (s.kind === 'pair') {
+    // modal form A = [[σ, ω], [−ω, σ]], B = [0, 1]: (sI − A)⁻¹B = [ω, s − σ]ᵀ / Δ
+    const [sig, om] = s.p;
+    const r1 = num[1] + 2 * sig * b2;
+    const r0 = num[2] - (sig * sig + om * om) * b2;
+    return { a: [[sig, om], [-om, sig]], b: [0, 1], c: [(r0 + r1 * sig) / om, r1], d: b2 };
+  }
+  // two real poles in series: x1 = u/(s − p1), x2 = x1/(s − p2)
+  const [p1, p2] = s.p;
+  const r1 = num[1] + (p1 + p2) * b2;
+  const r0 = num[2] - p1 * p2 * b2;
+  return { a: [[p1, 0], [1, p2]], b: [1, 0], c: [r1, r0 + r1 * p2], d: b2 };
+}
+
+/** Series connection: u → first → second → y. */
+export function series(first: StateSpace, second: StateSpace): StateSpace {
+  const n1 = first.a.length;
+  const n2 = second.a.length;
+  const a = matZeros(n1 + n2, n1 + n2);
+  for (let i = 0; i < n1; i++) for (let j = 0; j < n1; j++) a[i][j] = first.a[i][j];
+  for (let i = 0; i < n2; i++) {
+    for (let j = 0; j < n1; j++) a[n1 + i][j] = second.b[i] * first.c[j];
+    for (let j = 0; j < n2; j++) a[n1 + i][n1 + j] = second.a[i][j];
+  }
+  return {
+    a,
+    b: [...first.b, ...second.b.map((v) => v * first.d)],
+    c: [...first.c.map((v) => v * second.d), ...second.c],
+    d: first.d * second.d,
+  };
+}
+
+/** Negative unity feedback around L: y = L(r − y). Requires 1 + D ≠ 0. */
+export function feedback(l: StateSpace): StateSpace {
+  const k = 1 / (1 + l.d);
+  const a = l.a.map((row, i) => row.map((v, j) => v - l.b[i] * k * l.c[j]));
+  return { a, b: l.b.map((v) => v * k), c: l.c.map((v) => v * k), d: l.d * k };
+}
+
+/**
+ * Cascade realization of K·Π(s − zᵢ)/Π(s − pᵢ) (proper). The gain sits on the last
+ * section's output. Example: 25(s + 3)/(s + 18) → A = [[−18]], B = [1], C = [25·(−15)], D = 25.
+ */
+export function zpkToSs(zpk: Zpk): StateSpace {
+  const secs = sections(zpk).map(sectionSs);
+  let ss: StateSpace = { a: [], b: [], c: [], d: 1 };
+  for (const s of secs) ss = series(ss, s);
+  return { ...ss, c: ss.c.map((v) => v * zpk.gain), d: ss.d * zpk.gain };
+}
+
+/**
+ * Zero-order-hold (step-invariant) discretization of a state-space model:
+ * [[Φ, Γ], [0, 1]] = expm([[A, B], [0, 0]]·T) (the augmented-matrix form used by
+ * scipy.signal.cont2discrete 'zoh'). Returns Φ and Γ; C and D are unchanged.
+ */
+export function zohSs(ss: StateSpace, periodSec: number): { phi: Mat; gamma: number[] } {
+  const n = ss.a.length;
+  const m = matZeros(n + 1, n + 1);
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j < n; j++) m[i][j] = ss.a[i][j] * periodSec;
+    m[i][n] = ss.b[i] * periodSec;
+  }
+  const e = expm(m);
+  return { phi: e.slice(0, n).map((r) => r.slice(0, n)), gamma: e.slice(0, n).map((r) => r[n]) };
+}
+

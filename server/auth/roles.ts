@@ -3,6 +3,7 @@ import type { Db } from '../db/knex';
 import type { Role } from '../../schemas/auth';
 import { roleIn } from '../data/users';
 import { forbidden, notFound, unauthorized } from '../http/errors';
+import { idParam } from '../http/params';
 
 declare global {
   // eslint-disable-next-line @typescript-eslint/no-namespace
@@ -26,9 +27,7 @@ export const requireUser: RequestHandler = (req, _res, next) => {
 export function requireRole(db: Db, ...allowed: Role[]): RequestHandler {
   return async (req, _res, next) => {
     if (!req.user) throw unauthorized();
-    const raw = req.params.workspaceId;
-    const id = Number(raw);
-    if (!/^\d{1,10}$/.test(String(raw)) || !Number.isSafeInteger(id)) throw notFound('No such workspace');
+    const id = idParam(req.params.workspaceId, 'workspace');
     const role = await roleIn(db, req.user.id, id);
     if (!role) throw notFound('No such workspace');
     if (allowed.length && !allowed.includes(role)) {

@@ -1,9 +1,10 @@
 import { Router } from 'express';
 import type { AppContext } from '../context';
+import { designRoutes } from './designs';
 
 /** Routes beyond sign-in and members: each feature adds its router here. */
 export function apiRoutes(ctx: AppContext): Router {
   const r = Router();
-  void ctx;
+  r.use('/workspaces/:workspaceId/designs', designRoutes(ctx));
   return r;
 }

@@ -7,15 +7,12 @@ import { requireRole, ANY_MEMBER } from '../auth/roles';
 import { addMembership, getMember, listMembers, lockedOwnerIds } from '../data/members';
 import { audit, createUser, findUserByEmail } from '../data/users';
 import { conflict, notFound, parseOr400 } from '../http/errors';
+import { idParam } from '../http/params';
 import { generatePassword, hashPassword } from '../auth/passwords';
 
 const BASE = '/api/v1/workspaces/:workspaceId/members';
 
-function userIdParam(raw: unknown): number {
-  const id = Number(raw);
-  if (!/^\d{1,10}$/.test(String(raw)) || !Number.isSafeInteger(id)) throw notFound('No such member');
-  return id;
-}
+const userIdParam = (raw: unknown) => idParam(raw, 'member');
 
 export function memberRoutes(ctx: AppContext): Router {
   const { db, registry } = ctx;

@@ -32,9 +32,6 @@ export const configSchema = z.object({
   SEED_DEMO: bool.default(true).describe('seed the demo workspace (never when NODE_ENV=production)'),
   BUILD_WEB: bool.default(true).describe('build the web export at start when it is missing or older than the sources'),
   WEB_DIR: z.string().min(1).default('dist').describe('folder of the exported web build served by Express'),
-  SMTP_URL: z.string().optional().describe('smtp://host:port for outgoing mail; unset: mail is logged, not sent'),
-  MAIL_FROM: z.string().default('Samplewright <no-reply@samplewright.invalid>').describe('sender of outgoing mail'),
-  PUBLIC_URL: z.string().url().optional().describe('base URL used in links inside e-mails (default http://HOST:PORT)'),
 });
 
 export type Config = z.infer<typeof configSchema>;

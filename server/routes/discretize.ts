@@ -1,0 +1,33 @@
+import { Router } from 'express';
+import { performance } from 'node:perf_hooks';
+import { discretizeRequestSchema, discretizeResponseSchema } from '../../schemas/discretize';
+import type { AppContext } from '../context';
+import { requireUser } from '../auth/roles';
+import { badRequest, parseOr400 } from '../http/errors';
+import { runDiscretize } from '../dsp';
+import { DspInputError } from '../dsp/errors';
+
+/** The stateless compute API of DESIGN.md: a continuous compensator in, discrete implementations out. */
+export function discretizeRoutes(ctx: AppContext): Router {
+  const r = Router();
+  ctx.registry.add({
+    method: 'post', path: '/api/v1/discretize', tag: 'compute', auth: 'session-or-token',
+    body: discretizeRequestSchema, response: discretizeResponseSchema,
+    summary: 'Discretize a continuous compensator by up to five methods and analyse the drift (and the loop, with a plant)',
+  });
+  r.post('/discretize', requireUser, (req, res) => {
+    const body = parseOr400(discretizeRequestSchema, req.body);
+    const t0 = performance.now();
+    let out;
+    try {
+      out = runDiscretize(body);
+    } catch (e) {
+      if (e instanceof DspInputError) throw badRequest(e.message, e.issues);
+      throw e;
+    }
+    // the compute time alone, for clients and for `npm run bench`
+    res.setHeader('Server-Timing', `compute;dur=${(performance.now() - t0).toFixed(3)}`);
+    res.json(out);
+  });
+  return r;
+}

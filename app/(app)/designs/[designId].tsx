@@ -1,0 +1,1 @@
+export { DesignRouteScreen as default } from '../../../components/design/routes';

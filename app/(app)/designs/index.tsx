@@ -1,0 +1,1 @@
+export { DesignListScreen as default } from '../../../components/design/DesignListScreen';

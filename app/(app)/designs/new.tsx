@@ -1,0 +1,1 @@
+export { NewDesignScreen as default } from '../../../components/design/routes';

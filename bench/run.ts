@@ -1,0 +1,127 @@
+/**
+ * `npm run bench`: figures, not tests. Starts the real app on a private MariaDB under
+ * .bench-data/, signs in, and measures
+ *  - POST /api/v1/discretize with all five methods, a plant and 400 response points:
+ *    server compute time (Server-Timing) and loopback round trip, median and p95;
+ *  - requests per second of the same request under a loopback load (autocannon);
+ *  - bundle generation time (median, p95), when the code generator is present.
+ */
+import fs from 'node:fs';
+import net from 'node:net';
+import path from 'node:path';
+import { performance } from 'node:perf_hooks';
+import type { Server } from 'node:http';
+import autocannon from 'autocannon';
+import { startPrivateMariadb, ensureMariadbInstalled } from '../server/db/private-mariadb';
+import { createDb, migrateLatest } from '../server/db/knex';
+import { createApp } from '../server/app';
+import { loadConfig } from '../server/config';
+import { seedDemo, DEMO_PASSWORD } from '../server/seed';
+import { benchBundle } from './bundle';
+
+const ROOT = path.resolve(__dirname, '..');
+
+const REQUEST = {
+  compensator: { form: 'zpk', zeros: [-0.6, -5], poles: [-0.15, -40], gain: 22 },
+  plant: { form: 'tf', num: [30], den: [1, 4.5, 0] },
+  sampleRateHz: 400,
+  methods: ['tustin', 'prewarp', 'matched', 'zoh', 'backward-euler'],
+  prewarpHz: 2.2,
+  responsePoints: 400,
+};
+
+function freePort(): Promise<number> {
+  return new Promise((resolve) => {
+    const s = net.createServer();
+    s.listen(0, '127.0.0.1', () => {
+      const a = s.address();
+      s.close(() => resolve(typeof a === 'object' && a ? a.port : 0));
+    });
+  });
+}
+
+export function quantile(sorted: number[], q: number): number {
+  if (!sorted.length) return NaN;
+  const i = Math.min(sorted.length - 1, Math.max(0, Math.ceil(q * sorted.length) - 1));
+  return sorted[i]!;
+}
+
+export function summary(xs: number[]) {
+  const s = [...xs].sort((a, b) => a - b);
+  return { median: quantile(s, 0.5), p95: quantile(s, 0.95), n: s.length };
+}
+
+async function main() {
+  ensureMariadbInstalled();
+  const dir = path.join(ROOT, '.bench-data');
+  fs.rmSync(dir, { recursive: true, force: true });
+  const pdb = await startPrivateMariadb({ dir, port: await freePort(), database: 'sw_bench', user: 'sw_bench', grant: 'database' });
+  const db = createDb(pdb.connection);
+  const rows: [string, string, string, string][] = [];
+  try {
+    await migrateLatest(db);
+    await seedDemo(db);
+    const { app, close } = createApp({ db, config: loadConfig({ NODE_ENV: 'production' }), sessionSecret: 'bench-secret-bench-secret', log: () => {} });
+    const server = await new Promise<Server>((r) => {
+      const s = app.listen(0, '127.0.0.1', () => r(s));
+    });
+    const port = (server.address() as net.AddressInfo).port;
+    const base = `http://127.0.0.1:${port}`;
+    const login = await fetch(`${base}/api/v1/auth/login`, {
+      method: 'POST', headers: { 'Content-Type': 'application/json' },
+      body: JSON.stringify({ email: 'engineer@example.com', password: DEMO_PASSWORD }),
+    });
+    const { csrfToken } = (await login.json()) as { csrfToken: string };
+    const headers = {
+      'Content-Type': 'application/json', cookie: login.headers.get('set-cookie')!.split(';')[0]!, 'X-CSRF-Token': csrfToken,
+    };
+    const body = JSON.stringify(REQUEST);
+
+    const compute: number[] = [];
+    const roundTrip: number[] = [];
+    for (let i = 0; i < 600; i++) {
+      const t0 = performance.now();
+      const res = await fetch(`${base}/api/v1/discretize`, { method: 'POST', headers, body });
+      await res.arrayBuffer();
+      const t1 = performance.now();
+      if (res.status !== 200) throw new Error(`discretize answered ${res.status}`);
+      if (i < 100) continue; // warm-up
+      roundTrip.push(t1 - t0);
+      const m = /compute;dur=([\d.]+)/.exec(res.headers.get('server-timing') ?? '');
+      if (m) compute.push(Number(m[1]));
+    }
+    const c = summary(compute);
+    const rt = summary(roundTrip);
+    rows.push(['discretize: server compute (Server-Timing)', c.median.toFixed(3), c.p95.toFixed(3), `ms, n=${c.n}`]);
+    rows.push(['discretize: loopback round trip, one client', rt.median.toFixed(3), rt.p95.toFixed(3), `ms, n=${rt.n}`]);
+
+    const load = await autocannon({
+      url: `${base}/api/v1/discretize`, method: 'POST', headers, body, connections: 8, duration: 8,
+    });
+    rows.push(['discretize: loopback load, 8 connections, 8 s', `${load.requests.average.toFixed(0)} req/s`,
+      `p97.5 ${load.latency.p97_5} ms`, `non-2xx ${load.non2xx}, errors ${load.errors}`]);
+
+    server.closeAllConnections();
+    await new Promise<void>((r) => server.close(() => r()));
+    close();
+
+    const b = await benchBundle();
+    if (b) rows.push(['bundle generation (render + zip)', b.median.toFixed(3), b.p95.toFixed(3), `ms, n=${b.n}`]);
+  } finally {
+    await db.destroy();
+    await pdb.stop();
+    fs.rmSync(dir, { recursive: true, force: true });
+  }
+  const head: [string, string, string, string] = ['measure', 'median', 'p95', 'note'];
+  const widths = head.map((h, i) => Math.max(h.length, ...rows.map((r) => r[i]!.length)));
+  const line = (r: string[]) => `| ${r.map((x, i) => x.padEnd(widths[i]!)).join(' | ')} |`;
+  console.log(`\nSamplewright benchmark (${new Date().toISOString()}, node ${process.version})\n`);
+  console.log(line(head));
+  console.log(`|${widths.map((w) => '-'.repeat(w + 2)).join('|')}|`);
+  for (const r of rows) console.log(line(r));
+}
+
+main().catch((e) => {
+  console.error(e);
+  process.exit(1);
+});

@@ -24,7 +24,7 @@ export function roundShift(v: bigint, s: number): bigint {
 export interface FixedRun {
   /** Final output, raw counts, after the output limits. */
   y: number[];
-  /** Each section's output (raw counts of the word) per sample: nodes[k][n]. */
+  /** Each section's output (integers of the word; the last one is y·2^G) per sample: nodes[k][n]. */
   nodes: number[][];
   /** Samples where an accumulator add saturated, or a section output saturated to the word. */
   accSaturations: number;
@@ -74,7 +74,8 @@ export function runFixed(impl: FixedImplementation, uRaw: readonly number[]): Fi
       nodes[k].push(Number(out));
       x = out;
     });
-    y.push(Number(x < lo ? lo : x > hi ? hi : x));
+    const o = roundShift(x, impl.outputShift);
+    y.push(Number(o < lo ? lo : o > hi ? hi : o));
   }
   return { y, nodes, accSaturations: accSat, wordSaturations: wordSat };
 }

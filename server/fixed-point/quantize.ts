@@ -7,11 +7,15 @@
  *   acc   = acc_lo + roundShift(acc_hi, F_hi − F_lo)           (two groups only)
  *   v     = roundShift(acc, F_lo) + n1·y[n−1] + n2·y[n−2]      (n = 0, 0 in direct form I)
  *   y[n]  = saturate v to the W-bit word
+ * and after the last section: output = clamp(roundShift(y, G), outputMin, outputMax), G the
+ * output fraction bits.
  * roundShift(v, s) = floor(v / 2^s + 1/2): round to nearest, ties toward +∞, computed with
  * C99's truncating division and remainder, so it is defined for negative v on every target.
  *
- * Direct form I (one group, F from the largest of b0..b2, a1, a2):
- *   y[n] = b0 x[n] + b1 x[n−1] + b2 x[n−2] − a1 y[n−1] − a2 y[n−2]
+ * Direct form I: y[n] = b0 x[n] + b1 x[n−1] + b2 x[n−2] − a1 y[n−1] − a2 y[n−2], with the
+ *   numerator (b) and the feedback (a) coefficients each in the format of the largest of them
+ *   (one group when the two formats coincide), so that a large section gain in b does not cost
+ *   the poles their precision.
  * Offset form (for poles near z = 1; v = 1 − z⁻¹ basis, first-difference signals exact in integers):
  *   order 1: a1 = −1 + d1;          y[n] = y[n−1] + β0 x[n] + β1 Δx[n] − d1 y[n−1]
  *            β0 = b0 + b1 (the numerator at z = 1), β1 = −b1, Δx[n] = x[n] − x[n−1]
@@ -68,6 +72,8 @@ export interface FixedImplementation {
   wordLength: 16 | 32;
   structure: 'direct-form-1' | 'offset-form-1';
   sections: FixedSection[];
+  /** Output fraction bits G: the cascade computes y·2^G; the output is roundShift(y, G), clamped. */
+  outputShift: number;
   outputMin: number;
   outputMax: number;
 }
@@ -148,7 +154,15 @@ export function quantizeFixedSection(s: SectionSpec, wordLength: 16 | 32, struct
           { name: 'a1', exact: a1, signal: 'y1', subtract: true },
           { name: 'a2', exact: a2, signal: 'y2', subtract: true },
         ];
-    return { ...base, groups: [makeGroup(wordLength, items, clamped)], nominal: [0, 0] };
+    // Numerator and feedback coefficients each get the format of their largest one; when both
+    // formats coincide the section has a single group (a single rounding).
+    const num = items.filter((t) => !t.subtract), fb = items.filter((t) => t.subtract);
+    const gNum = makeGroup(wordLength, num, clamped);
+    const gFb = makeGroup(wordLength, fb, clamped, gNum.shift);
+    const groups = gNum.shift === gFb.shift
+      ? [{ shift: gNum.shift, terms: [...gNum.terms, ...gFb.terms] }]
+      : [gNum, gFb].sort((g, h) => g.shift - h.shift);
+    return { ...base, groups, nominal: [0, 0] };
   }
   let fine: Omit<Term, 'coef'>[];
   let main: Omit<Term, 'coef'>[];
@@ -203,12 +217,13 @@ export function quantize(
   structure: Structure,
   outputMin: number,
   outputMax: number,
+  outputShift = 0,
 ): Implementation {
   if (wordLength === 'float32') {
     return { kind: 'float', wordLength, structure: 'transposed-direct-form-2', sections: specs.map(quantizeFloatSection), outputMin, outputMax };
   }
   const st = structure === 'offset-form-1' ? 'offset-form-1' : 'direct-form-1';
-  return { kind: 'fixed', wordLength, structure: st, sections: specs.map((s) => quantizeFixedSection(s, wordLength, st)), outputMin, outputMax };
+  return { kind: 'fixed', wordLength, structure: st, sections: specs.map((s) => quantizeFixedSection(s, wordLength, st)), outputShift, outputMin, outputMax };
 }
 
 /** Significant bits of a quantized integer: 0 for 0, else floor(log2|c|) + 1. */

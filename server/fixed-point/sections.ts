@@ -16,8 +16,9 @@
  *   conversions).
  * - Order: sections with poles closest to the unit circle last (common practice: the
  *   high-gain, slow sections come last so that earlier nodes carry little gain).
- * - Gain: every section but the last is scaled to a peak magnitude of 1 over the frequency grid
- *   (L∞ scaling, common practice); the last one carries the rest of the gain.
+ * - Gain: every section but the last is scaled so that the peak magnitude from the input to its
+ *   output over the frequency grid is a chosen node gain (L∞ scaling, common practice); the last
+ *   one carries the rest of the gain.
  */
 import type { Complex, Zpk } from '../dsp/types';
 
@@ -67,10 +68,11 @@ export function sectionMagnitude(b: readonly number[], a: readonly number[], w: 
 }
 
 /**
- * Cascade of sections whose product is `gain` · (discrete zpk without its K) · zpk.gain,
- * i.e. H(z) scaled by `extraGain` (for fixed point the input/output scale ratio).
+ * Cascade of sections whose product is extraGain · H(z) (for fixed point extraGain is the
+ * input/output scale ratio). Every inner node (the output of each section but the last) is
+ * scaled so that the peak gain over the grid from the cascade input to it is `nodePeakGain`.
  */
-export function toSections(zpk: Zpk, extraGain = 1): SectionSpec[] {
+export function toSections(zpk: Zpk, extraGain = 1, nodePeakGain = 1): SectionSpec[] {
   const poleGroups = groupRoots(zpk.poles);
   const zeroGroups = groupRoots(zpk.zeros);
   const radius = (g: Group) => Math.hypot(g.roots[0].re, g.roots[0].im);
@@ -135,16 +137,22 @@ export function toSections(zpk: Zpk, extraGain = 1): SectionSpec[] {
     return { order, zeros, poles, b, a };
   });
 
+  // Cumulative L∞ scaling: the peak gain from the input to each inner node is nodePeakGain.
   let rest = zpk.gain * extraGain;
+  const cumulative = SCALING_GRID.map(() => 1);
   specs.forEach((s, k) => {
     if (k === specs.length - 1) {
       s.b = s.b.map((v) => v * rest) as SectionSpec['b'];
       return;
     }
     let peak = 0;
-    for (const w of SCALING_GRID) { const m = sectionMagnitude(s.b, s.a, w); if (Number.isFinite(m)) peak = Math.max(peak, m); }
-    const c = peak > 0 ? 1 / peak : 1;
+    SCALING_GRID.forEach((w, i) => {
+      cumulative[i] *= sectionMagnitude(s.b, s.a, w);
+      if (Number.isFinite(cumulative[i])) peak = Math.max(peak, cumulative[i]);
+    });
+    const c = peak > 0 ? nodePeakGain / peak : 1;
     s.b = s.b.map((v) => v * c) as SectionSpec['b'];
+    for (let i = 0; i < cumulative.length; i++) cumulative[i] *= c;
     rest /= c;
   });
   return specs;

@@ -1,11 +1,12 @@
-import { useState } from 'react';
+import { useState, type ReactNode } from 'react';
 import { Slot } from 'expo-router';
 import { useFonts } from 'expo-font';
 import { StatusBar } from 'expo-status-bar';
 import { QueryClientProvider } from '@tanstack/react-query';
 import { SafeAreaProvider } from 'react-native-safe-area-context';
 import { createQueryClient } from '../components/data/query-client';
-import { SessionProvider, handleUnauthorized } from '../components/data/session';
+import { SessionProvider, handleUnauthorized, useSession } from '../components/data/session';
+import { CenteredMessage } from '../components/ui/CenteredMessage';
 import { theme } from '../components/theme';
 
 /** Every provider of the app, in one place; the route groups below decide what is shown. */
@@ -26,9 +27,22 @@ export default function RootLayout() {
       <QueryClientProvider client={queryClient}>
         <SessionProvider>
           <StatusBar style="dark" />
-          <Slot />
+          <UntilSessionKnown>
+            <Slot />
+          </UntilSessionKnown>
         </SessionProvider>
       </QueryClientProvider>
     </SafeAreaProvider>
   );
+}
+
+/**
+ * The route groups' navigators mount only once we know whether someone is signed in:
+ * a group layout that first renders a placeholder instead of its <Slot /> makes Expo
+ * Router fall back to the group's index route, which would lose a deep link.
+ */
+function UntilSessionKnown({ children }: { children: ReactNode }) {
+  const { status } = useSession();
+  if (status === 'loading') return <CenteredMessage busy testID="session-loading" />;
+  return <>{children}</>;
 }

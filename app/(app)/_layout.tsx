@@ -1,3 +1,4 @@
+import { useRef } from 'react';
 import { Redirect, Slot, usePathname } from 'expo-router';
 import { useSession } from '../../components/data/session';
 import { AppShell } from '../../components/shell/AppShell';
@@ -8,8 +9,10 @@ import { CenteredMessage } from '../../components/ui/CenteredMessage';
 export default function AppLayout() {
   const { status, current, refetch, error } = useSession();
   const pathname = usePathname();
+  // While this layout renders no <Slot />, Expo Router on the web rewrites the URL to the
+  // group's index route, so the path asked for is the one seen on the first render.
+  const requested = useRef(pathname);
 
-  if (status === 'loading') return <CenteredMessage busy testID="session-loading" />;
   if (status === 'error') {
     return (
       <CenteredMessage testID="session-error" title="Samplewright cannot reach its server" text={error?.message}>
@@ -17,8 +20,9 @@ export default function AppLayout() {
       </CenteredMessage>
     );
   }
-  if (status === 'signed-out') {
-    return <Redirect href={pathname && pathname !== '/' ? { pathname: '/sign-in', params: { next: pathname } } : '/sign-in'} />;
+  if (status !== 'signed-in') {
+    const next = requested.current;
+    return <Redirect href={next && next !== '/' ? `/sign-in?next=${encodeURIComponent(next)}` : '/sign-in'} />;
   }
   if (!current) {
     return (

@@ -29,6 +29,8 @@ export function MemberRow({ member, workspaceId, editable, isSelf, wide, last }:
   const [confirm, setConfirm] = useState<Pending>(null);
   const error = changeRole.error ?? remove.error;
   const key = member.email;
+  // a read-only row always fits on one line; the role controls need a wide row
+  const inline = wide || !editable;
 
   const applyRole = (role: Role) => {
     if (role === member.role) return;
@@ -51,8 +53,8 @@ export function MemberRow({ member, workspaceId, editable, isSelf, wide, last }:
         gap: space.sm,
       }}
     >
-      <View style={{ flexDirection: wide ? 'row' : 'column', alignItems: wide ? 'center' : 'stretch', gap: space.md }}>
-        <View style={{ flex: wide ? 1 : undefined, minWidth: 0, gap: 2 }}>
+      <View style={{ flexDirection: inline ? 'row' : 'column', alignItems: inline ? 'center' : 'stretch', gap: space.md }}>
+        <View style={{ flex: inline ? 1 : undefined, minWidth: 0, gap: 2 }}>
           <View style={{ flexDirection: 'row', alignItems: 'center', gap: space.sm }}>
             <Text variant="bodyMedium" numberOfLines={1} style={{ flexShrink: 1 }}>
               {member.name || member.email}

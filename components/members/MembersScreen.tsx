@@ -32,7 +32,7 @@ export function MembersScreen() {
       ) : (
         <Card tone="muted" testID="members-read-only">
           <Text variant="small" style={{ color: colors.text }}>
-            You are {ROLE_LABELS[role] === 'Owner' ? 'an' : 'a'} {ROLE_LABELS[role].toLowerCase()} here. Only owners add
+            You are {/^[aeiou]/i.test(role) ? 'an' : 'a'} {ROLE_LABELS[role].toLowerCase()} here. Only owners add
             members, change roles or remove people.
           </Text>
         </Card>

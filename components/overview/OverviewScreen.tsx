@@ -1,11 +1,11 @@
-import { Pressable, View } from 'react-native';
+import { View } from 'react-native';
 import { Link } from 'expo-router';
 import { useCurrentWorkspace, useSession } from '../data/session';
 import { ROLE_LABELS, ROLE_SUMMARIES } from '../roles';
 import { useTheme } from '../theme';
 import { Card } from '../ui/Card';
 import { DesignsIcon, MembersIcon, type IconProps } from '../ui/icons';
-import { isHovered } from '../ui/pressable';
+import { LinkPressable } from '../ui/pressable';
 import { Screen } from '../ui/Screen';
 import { Text } from '../ui/Text';
 import type { ComponentType } from 'react';
@@ -26,10 +26,10 @@ function QuickLink({ href, title, text, Icon, testID }: { href: '/designs' | '/m
   const { colors, radius, space } = useTheme();
   return (
     <Link href={href} asChild>
-      <Pressable
+      <LinkPressable
         testID={testID}
         accessibilityRole="link"
-        style={(state) => ({
+        styleFor={({ hovered }) => ({
           flexGrow: 1,
           flexBasis: 260,
           flexDirection: 'row',
@@ -37,7 +37,7 @@ function QuickLink({ href, title, text, Icon, testID }: { href: '/designs' | '/m
           padding: space.lg,
           borderRadius: radius.lg,
           borderWidth: 1,
-          borderColor: isHovered(state) ? colors.primary : colors.border,
+          borderColor: hovered ? colors.primary : colors.border,
           backgroundColor: colors.surface,
         })}
       >
@@ -48,7 +48,7 @@ function QuickLink({ href, title, text, Icon, testID }: { href: '/designs' | '/m
           <Text variant="bodyMedium">{title}</Text>
           <Text variant="small">{text}</Text>
         </View>
-      </Pressable>
+      </LinkPressable>
     </Link>
   );
 }

@@ -4,7 +4,7 @@ import { Link, usePathname } from 'expo-router';
 import { useSafeAreaInsets } from 'react-native-safe-area-context';
 import { useCurrentWorkspace, useSession, useSignOut } from '../data/session';
 import { ROLE_LABELS } from '../roles';
-import { isHovered } from '../ui/pressable';
+import { LinkPressable } from '../ui/pressable';
 import { useTheme } from '../theme';
 import { Button } from '../ui/Button';
 import { InfoIcon, MarkIcon } from '../ui/icons';
@@ -23,13 +23,13 @@ export function AppShell({ children }: { children: ReactNode }) {
   return width >= wideBreakpoint ? <WideShell>{children}</WideShell> : <PhoneShell>{children}</PhoneShell>;
 }
 
-function RoleBadge({ testID }: { testID?: string }) {
+function RoleBadge({ testID, align = 'flex-start' }: { testID?: string; align?: 'flex-start' | 'center' }) {
   const { colors, radius, space } = useTheme();
   const { role } = useCurrentWorkspace();
   return (
     <View
       style={{
-        alignSelf: 'flex-start',
+        alignSelf: align,
         backgroundColor: '#e3edf4',
         borderRadius: radius.sm,
         paddingHorizontal: space.sm,
@@ -103,13 +103,11 @@ function WideShell({ children }: { children: ReactNode }) {
             const active = matches(pathname);
             return (
               <Link key={href} href={href} asChild>
-                <Pressable
+                <LinkPressable
                   testID={testID}
                   accessibilityRole="link"
                   aria-current={active ? 'page' : undefined}
-                  style={(state) => {
-                    const hovered = isHovered(state);
-                    return ({
+                  styleFor={({ hovered }) => ({
                     flexDirection: 'row',
                     alignItems: 'center',
                     gap: space.md,
@@ -117,14 +115,13 @@ function WideShell({ children }: { children: ReactNode }) {
                     paddingVertical: space.sm + 2,
                     borderRadius: radius.md,
                     backgroundColor: active ? '#e3edf4' : hovered ? colors.surfaceAlt : 'transparent',
-                  });
-                  }}
+                  })}
                 >
                   <Icon color={active ? colors.primary : colors.textMuted} size={20} />
                   <Text variant="bodyMedium" style={{ color: active ? colors.primary : colors.text }}>
                     {label}
                   </Text>
-                </Pressable>
+                </LinkPressable>
               </Link>
             );
           })}
@@ -191,7 +188,7 @@ function PhoneShell({ children }: { children: ReactNode }) {
             </Text>
             <WorkspaceSwitcher variant="inline" />
           </View>
-          <RoleBadge testID="current-role" />
+          <RoleBadge testID="current-role" align="center" />
           <Pressable
             testID="account-menu"
             accessibilityRole="button"

@@ -1,0 +1,67 @@
+/** Debian's Chromium driven by playwright-core, launched as STACK.md prescribes. */
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { chromium, type BrowserContext, type Page } from 'playwright-core';
+
+export const CHROMIUM_PATH = '/usr/bin/chromium';
+export const CHROMIUM_ARGS = [
+  '--headless',
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-quic',
+  '--no-first-run',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+];
+
+/** The two widths the shell is laid out for: a phone first, and a desktop with the side navigation. */
+export const VIEWPORTS = {
+  phone: { width: 390, height: 844 },
+  wide: { width: 1440, height: 900 },
+} as const;
+
+export const SCREENSHOT_DIR = path.resolve(__dirname, '..', '..', '.test-data', 'screenshots');
+
+export interface TestBrowser {
+  context: BrowserContext;
+  /** a fresh page at this viewport; uncaught page errors are collected in `errors` */
+  newPage(viewport: { width: number; height: number }): Promise<{ page: Page; errors: string[] }>;
+  close(): Promise<void>;
+}
+
+export async function launchBrowser(): Promise<TestBrowser> {
+  if (!fs.existsSync(CHROMIUM_PATH)) {
+    throw new Error(`${CHROMIUM_PATH} is missing: apt-get install -y chromium`);
+  }
+  const userDataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'sw-chromium-'));
+  const context = await chromium.launchPersistentContext(userDataDir, {
+    executablePath: CHROMIUM_PATH,
+    headless: true,
+    args: CHROMIUM_ARGS,
+  });
+  context.setDefaultTimeout(15_000);
+  return {
+    context,
+    async newPage(viewport) {
+      const page = await context.newPage();
+      await page.setViewportSize(viewport);
+      const errors: string[] = [];
+      page.on('pageerror', (error) => errors.push(error.message));
+      return { page, errors };
+    },
+    async close() {
+      await context.close();
+      fs.rmSync(userDataDir, { recursive: true, force: true });
+    },
+  };
+}
+
+/** Saves a full-page PNG under .test-data/screenshots/ (git-ignored) and returns its path. */
+export async function screenshot(page: Page, name: string): Promise<string> {
+  fs.mkdirSync(SCREENSHOT_DIR, { recursive: true });
+  const file = path.join(SCREENSHOT_DIR, `${name}.png`);
+  await page.screenshot({ path: file, fullPage: true });
+  return file;
+}

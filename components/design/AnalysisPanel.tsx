@@ -31,7 +31,7 @@ export function AnalysisPanel({ answer, chosen, tolerances, skipped, stale }: Pr
   const [hidden, setHidden] = useState<Partial<Record<MethodName, boolean>>>({});
   const shown = available.filter((m) => !hidden[m]);
   const { width, onLayout } = useLayoutWidth();
-  const twoUp = width >= 760;
+  const twoUp = width >= 640;
   const half = twoUp ? Math.floor((width - space.lg) / 2) : width;
   const table = useMemo(() => buildDriftTable(answer, tolerances), [answer, tolerances]);
 

@@ -9,8 +9,8 @@ import { switchForm } from './entry';
 
 /** Names of the entry forms on screen. */
 const ENTRY_FORM_OPTIONS: { value: EntryForm; label: string }[] = [
-  { value: 'lead', label: 'Gain · zero · pole' },
-  { value: 'time-constant', label: 'Time constants' },
+  { value: 'lead', label: 'Lead / lag' },
+  { value: 'time-constant', label: 'Time const.' },
   { value: 'zpk', label: 'Roots' },
   { value: 'tf', label: 'Polynomials' },
 ];

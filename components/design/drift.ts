@@ -56,7 +56,8 @@ function maxOf(values: Array<number | null>): number | null {
   return xs.length === 0 ? null : Math.max(...xs.map(Math.abs));
 }
 
-const pct = (v: number) => (Number.isFinite(v) ? `${fmt(v, 3)} %` : '∞');
+/** Percent for the table; below 1e-9 % it is rounding noise of an exact map (matched, s = 0 → z = 1). */
+const pct = (v: number) => (!Number.isFinite(v) ? '∞' : Math.abs(v) < 1e-9 ? '≈ 0 %' : `${fmt(v, 3)} %`);
 
 /** Relative difference of two values that may be null (null = infinite, e.g. a DC gain with an integrator). */
 export function relativeChangePercent(value: number | null, reference: number | null): number | null {

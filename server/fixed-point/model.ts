@@ -1,7 +1,7 @@
 /**
  * Bit-exact model of the generated C (templates/controller.c.hbs), sample by sample, in the
  * same order of operations:
- * - fixed point: BigInt arithmetic with the accumulator saturated to 2W bits at every add,
+ * - fixed point: exact integer arithmetic (BigInt for 32-bit words, Number for 16-bit) with the accumulator saturated to 2W bits at every add,
  *   roundShift as in quantize.ts, section outputs saturated to the W-bit word, the final output
  *   clamped to [outputMin, outputMax] (the state keeps the unclamped section output);
  * - float32: Math.fround after every single multiply and add, as C computes float expressions
@@ -26,56 +26,93 @@ export interface FixedRun {
   y: number[];
   /** Each section's output (integers of the word; the last one is y·2^G) per sample: nodes[k][n]. */
   nodes: number[][];
-  /** Samples where an accumulator add saturated, or a section output saturated to the word. */
+  /** Number of accumulator adds that saturated, and of section outputs saturated to the word. */
   accSaturations: number;
   wordSaturations: number;
 }
 
+/** Integer arithmetic the model runs on: BigInt (exact for 64-bit accumulators) or Number (exact below 2^53, used for 16-bit words). */
+interface IntOps<T> {
+  of(v: number): T;
+  toNumber(v: T): number;
+  add(a: T, b: T): T;
+  sub(a: T, b: T): T;
+  mul(a: T, b: T): T;
+  roundShift(v: T, s: number): T;
+  /** [−2^(bits−1), 2^(bits−1) − 1] */
+  range(bits: number): [T, T];
+}
+const BIG: IntOps<bigint> = {
+  of: (v) => BigInt(v), toNumber: (v) => Number(v),
+  add: (a, b) => a + b, sub: (a, b) => a - b, mul: (a, b) => a * b, roundShift,
+  range: (bits) => [-(1n << BigInt(bits - 1)), (1n << BigInt(bits - 1)) - 1n],
+};
+/** Same roundShift with Numbers: Math.trunc and % behave as C99's / and % on exact integers. */
+const NUM: IntOps<number> = {
+  of: (v) => v, toNumber: (v) => v,
+  add: (a, b) => a + b, sub: (a, b) => a - b, mul: (a, b) => a * b,
+  roundShift: (v, s) => {
+    if (s === 0) return v;
+    const one = 2 ** s;
+    let q = Math.trunc(v / one), r = v % one;
+    if (r < 0) { q -= 1; r += one; }
+    if (r >= one / 2) q += 1;
+    return q + 0; // + 0 turns −0 into 0
+  },
+  range: (bits) => [-(2 ** (bits - 1)), 2 ** (bits - 1) - 1],
+};
+
 export function runFixed(impl: FixedImplementation, uRaw: readonly number[]): FixedRun {
+  // 16-bit words: products < 2^30 and saturated sums < 2^31, all exact as doubles.
+  return impl.wordLength === 16 ? runFixedWith(NUM, impl, uRaw) : runFixedWith(BIG, impl, uRaw);
+}
+
+function runFixedWith<T>(o: IntOps<T>, impl: FixedImplementation, uRaw: readonly number[]): FixedRun {
   const W = impl.wordLength;
-  const accMax = (1n << BigInt(2 * W - 1)) - 1n, accMin = -(1n << BigInt(2 * W - 1));
-  const wMax = (1n << BigInt(W - 1)) - 1n, wMin = -(1n << BigInt(W - 1));
-  const lo = BigInt(impl.outputMin), hi = BigInt(impl.outputMax);
+  const [accMin, accMax] = o.range(2 * W);
+  const wMax = o.of(2 ** (W - 1) - 1), wMin = o.of(-(2 ** (W - 1)));
+  const lo = o.of(impl.outputMin), hi = o.of(impl.outputMax);
+  const zero = o.of(0), two = o.of(2);
   let accSat = 0, wordSat = 0;
-  const satAdd = (a: bigint, b: bigint) => {
-    const s = a + b;
+  const satAdd = (a: T, b: T) => {
+    const s = o.add(a, b);
     if (s > accMax) { accSat++; return accMax; }
     if (s < accMin) { accSat++; return accMin; }
     return s;
   };
-  const state = impl.sections.map(() => ({ x1: 0n, x2: 0n, y1: 0n, y2: 0n }));
+  const state = impl.sections.map(() => ({ x1: zero, x2: zero, y1: zero, y2: zero }));
   const prepared = impl.sections.map((sec: FixedSection) => ({
     sec,
-    groups: sec.groups.map((g) => ({ shift: g.shift, terms: g.terms.map((t) => ({ c: BigInt(t.coef), sig: t.signal as SignalName, sub: t.subtract })) })),
-    n1: BigInt(sec.nominal[0]), n2: BigInt(sec.nominal[1]),
+    groups: sec.groups.map((g) => ({ shift: g.shift, terms: g.terms.map((t) => ({ c: o.of(t.coef), sig: t.signal as SignalName, sub: t.subtract })) })),
+    n1: o.of(sec.nominal[0]), n2: o.of(sec.nominal[1]), offset: sec.nominal[0] !== 0,
   }));
   const y: number[] = [];
   const nodes: number[][] = impl.sections.map(() => []);
   for (const u of uRaw) {
-    let x = BigInt(u);
+    let x = o.of(u);
     prepared.forEach((p, k) => {
       const st = state[k];
-      const sig: Record<SignalName, bigint> = {
+      const sig: Record<SignalName, T> = {
         x0: x, x1: st.x1, x2: st.x2, y1: st.y1, y2: st.y2,
-        dx: x - st.x1, ddx: x - 2n * st.x1 + st.x2,
+        dx: o.sub(x, st.x1), ddx: o.add(o.sub(x, o.mul(two, st.x1)), st.x2),
       };
       const accs = p.groups.map((g) => {
-        let acc = 0n;
-        for (const t of g.terms) { const prod = t.c * sig[t.sig]; acc = satAdd(acc, t.sub ? -prod : prod); }
+        let acc = zero;
+        for (const t of g.terms) { const prod = o.mul(t.c, sig[t.sig]); acc = satAdd(acc, t.sub ? o.sub(zero, prod) : prod); }
         return acc;
       });
       let acc = accs[0];
-      if (p.groups.length === 2) acc = satAdd(acc, roundShift(accs[1], p.groups[1].shift - p.groups[0].shift));
-      let v = roundShift(acc, p.groups[0].shift);
-      if (p.sec.nominal[0] !== 0) v = satAdd(satAdd(v, p.n1 * st.y1), p.n2 * st.y2);
+      if (p.groups.length === 2) acc = satAdd(acc, o.roundShift(accs[1], p.groups[1].shift - p.groups[0].shift));
+      let v = o.roundShift(acc, p.groups[0].shift);
+      if (p.offset) v = satAdd(satAdd(v, o.mul(p.n1, st.y1)), o.mul(p.n2, st.y2));
       let out = v;
       if (out > wMax) { out = wMax; wordSat++; } else if (out < wMin) { out = wMin; wordSat++; }
       st.x2 = st.x1; st.x1 = x; st.y2 = st.y1; st.y1 = out;
-      nodes[k].push(Number(out));
+      nodes[k].push(o.toNumber(out));
       x = out;
     });
-    const o = roundShift(x, impl.outputShift);
-    y.push(Number(o < lo ? lo : o > hi ? hi : o));
+    const out = o.roundShift(x, impl.outputShift);
+    y.push(o.toNumber(out < lo ? lo : out > hi ? hi : out));
   }
   return { y, nodes, accSaturations: accSat, wordSaturations: wordSat };
 }

@@ -8,6 +8,7 @@ import { StepPlot, type StepSeries } from '../plots/StepPlot';
 import { useLayoutWidth } from '../plots/useLayoutWidth';
 import { useTheme } from '../theme';
 import { Card } from '../ui/Card';
+import { Segmented } from '../ui/Segmented';
 import { Text } from '../ui/Text';
 import { buildDriftTable } from './drift';
 import { DriftTableView } from './DriftTableView';
@@ -29,6 +30,7 @@ export function AnalysisPanel({ answer, chosen, tolerances, skipped, stale }: Pr
   const { colors, space } = useTheme();
   const available = METHOD_NAMES.filter((m) => answer.methods[m]);
   const [hidden, setHidden] = useState<Partial<Record<MethodName, boolean>>>({});
+  const [zoomZ, setZoomZ] = useState(false);
   const shown = available.filter((m) => !hidden[m]);
   const { width, onLayout } = useLayoutWidth();
   const twoUp = width >= 640;
@@ -133,7 +135,18 @@ export function AnalysisPanel({ answer, chosen, tolerances, skipped, stale }: Pr
         <Card style={{ width: half }}>
           <Text variant="title">z-plane</Text>
           <Text variant="small">Poles ×, zeros ○; dashed: the unit circle.</Text>
-          <PoleZeroMap testID="zplane-plot" plane="z" width={Math.max(0, half - 2 * space.lg - 2)} series={zSeries} />
+          <Segmented
+            testID="zplane-frame"
+            accessibilityLabel="z-plane framing"
+            options={[
+              { value: 'circle', label: 'Unit circle' },
+              { value: 'roots', label: 'Near the roots' },
+            ]}
+            value={zoomZ ? 'roots' : 'circle'}
+            onChange={(v) => setZoomZ(v === 'roots')}
+            compact
+          />
+          <PoleZeroMap testID="zplane-plot" plane="z" zoom={zoomZ} width={Math.max(0, half - 2 * space.lg - 2)} series={zSeries} />
         </Card>
         <Card style={{ width: half }}>
           <Text variant="title">s-plane</Text>

@@ -7,9 +7,9 @@ import type { DriftTable } from './drift';
 import { recommendedMethod } from './drift';
 import { METHOD_LABELS, METHOD_SHORT } from './methods';
 
-const LABEL_W = 164;
-const REF_W = 104;
-const MIN_COL_W = 96;
+const LABEL_W = 150;
+const REF_W = 86;
+const MIN_COL_W = 84;
 const MAX_COL_W = 140;
 /** below this width each figure becomes a block of its own instead of a table row */
 const STACK_BELOW = 600;
@@ -47,7 +47,7 @@ export function DriftTableView({ table, chosen, testID }: Props) {
               <Text variant="overline">Figure</Text>
             </View>
             <View style={[cellBase, { width: REF_W }]}>
-              <Text variant="overline">Continuous</Text>
+              <Text variant="overline">H(s)</Text>
             </View>
             {table.methods.map((m) => (
               <View key={m} style={[cellBase, { width: COL_W, flexDirection: 'row', alignItems: 'center', gap: 6, justifyContent: 'flex-start' }]}>

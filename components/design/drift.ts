@@ -67,12 +67,13 @@ export function relativeChangePercent(value: number | null, reference: number | 
   return (100 * Math.abs(value - reference)) / Math.abs(reference);
 }
 
-/** Methods with the lowest score, ties within 1e-9 relative; empty when there is nothing to choose. */
+/** Methods with the lowest score (ties included); empty when there is nothing to choose. */
 export function bestOf(cells: Partial<Record<MethodName, DriftCell>>): MethodName[] {
   const scored = (Object.entries(cells) as Array<[MethodName, DriftCell]>).filter(([, c]) => c.score !== null && !Number.isNaN(c.score));
   if (scored.length < 2) return [];
   const min = Math.min(...scored.map(([, c]) => c.score as number));
-  const tol = 1e-9 * Math.max(1, Math.abs(min));
+  // ties: within 1e-9 relative, or 1e-6 absolute (1e-6 %, dB or degrees is rounding noise)
+  const tol = Math.max(1e-9 * Math.abs(min), 1e-6);
   const best = scored.filter(([, c]) => (c.score as number) - min <= tol || (c.score === Infinity && min === Infinity)).map(([m]) => m);
   return best.length === scored.length ? [] : best;
 }
@@ -126,7 +127,7 @@ export function buildDriftTable(answer: DiscretizeResponse, tolerances: Toleranc
     row('dc-gain', 'DC gain', methods, (r) => {
       const change = relativeChangePercent(r.dcGain, c.dcGain);
       const text = r.dcGain === null ? '∞' : fmt(r.dcGain, 5);
-      return { text: change !== null && change > 1e-9 && Number.isFinite(change) ? `${text} (${pct(change)})` : text, score: change, beyond: change !== null && change > tolerances.dcGainDriftPct };
+      return { text: change !== null && change > 1e-6 && Number.isFinite(change) ? `${text} (${pct(change)})` : text, score: change, beyond: change !== null && change > tolerances.dcGainDriftPct };
     }, R, c.dcGain === null ? '∞' : fmt(c.dcGain, 5)),
   );
   rows.push(

@@ -4,12 +4,9 @@ import Svg, { Circle, G, Line, Path } from 'react-native-svg';
 import { useTheme } from '../theme';
 import { Legend } from './Legend';
 import { PlotFrame, type PlotMargins } from './PlotFrame';
-import { finiteExtent, linearTicks } from './scales';
+import { equalAspectDomains, linearTicks, type Root } from './scales';
 
-export interface Root {
-  re: number;
-  im: number;
-}
+export type { Root } from './scales';
 
 export interface RootSeries {
   key: string;
@@ -23,45 +20,22 @@ interface Props {
   width: number;
   plane: 'z' | 's';
   series: RootSeries[];
+  /** z-plane: frame the roots instead of the whole unit circle (roots crowd near z = 1 at high rates) */
+  zoom?: boolean;
   testID?: string;
 }
 
 const MARGINS: PlotMargins = { top: 10, right: 14, bottom: 34, left: 52 };
 
-/**
- * Equal-aspect domains that hold every root (and the unit circle in the z-plane): one unit
- * on the real axis is as long as one unit on the imaginary axis, so circles stay circles.
- */
-export function equalAspectDomains(
-  roots: Root[],
-  plane: 'z' | 's',
-  plotW: number,
-  plotH: number,
-): { re: [number, number]; im: [number, number] } {
-  const res = finiteExtent([roots.map((r) => r.re), plane === 'z' ? [-1, 1] : [0]]) ?? { min: -1, max: 1 };
-  const ims = finiteExtent([roots.map((r) => r.im), plane === 'z' ? [-1, 1] : [0]]) ?? { min: -1, max: 1 };
-  let spanRe = res.max - res.min;
-  let spanIm = ims.max - ims.min;
-  const base = Math.max(spanRe, spanIm, plane === 'z' ? 2 : 1e-9) || 1;
-  spanRe = Math.max(spanRe, base * 0.2) * 1.15;
-  spanIm = Math.max(spanIm, base * 0.2) * 1.15;
-  const perPx = Math.max(spanRe / plotW, spanIm / plotH);
-  const cRe = (res.max + res.min) / 2;
-  const cIm = (ims.max + ims.min) / 2;
-  const halfRe = (perPx * plotW) / 2;
-  const halfIm = (perPx * plotH) / 2;
-  return { re: [cRe - halfRe, cRe + halfRe], im: [cIm - halfIm, cIm + halfIm] };
-}
-
 /** Pole–zero map: poles as ×, zeros as ○; the z-plane shows the unit circle, the s-plane the imaginary axis. */
-export function PoleZeroMap({ width, plane, series, testID }: Props) {
+export function PoleZeroMap({ width, plane, series, zoom, testID }: Props) {
   const t = useTheme();
   const height = Math.round(Math.min(Math.max(width * 0.8, 240), 380));
   if (width < 120) return <View testID={testID} style={{ height }} />;
   const plotW = width - MARGINS.left - MARGINS.right;
   const plotH = height - MARGINS.top - MARGINS.bottom;
   const all = series.flatMap((s) => [...s.poles, ...s.zeros]).filter((r) => Number.isFinite(r.re) && Number.isFinite(r.im));
-  const d = equalAspectDomains(all, plane, plotW, plotH);
+  const d = equalAspectDomains(all, plane, plotW, plotH, zoom);
   const x = scaleLinear().domain(d.re).range([MARGINS.left, width - MARGINS.right]);
   const y = scaleLinear().domain(d.im).range([height - MARGINS.bottom, MARGINS.top]);
   const xTicks = linearTicks(d.re, plotW, 60);

@@ -56,3 +56,37 @@ export function formatTick(v: number): string {
   if (a >= 1000) return `${+(v / 1000).toPrecision(3)}k`;
   return `${+v.toPrecision(3)}`;
 }
+
+export interface Root {
+  re: number;
+  im: number;
+}
+
+/**
+ * Equal-aspect domains that hold every root (and the unit circle in the z-plane): one unit
+ * on the real axis is as long as one unit on the imaginary axis, so circles stay circles.
+ */
+export function equalAspectDomains(
+  roots: Root[],
+  plane: 'z' | 's',
+  plotW: number,
+  plotH: number,
+  /** z-plane only: frame the roots alone instead of the whole unit circle */
+  zoom = false,
+): { re: [number, number]; im: [number, number] } {
+  const whole = plane === 'z' && !zoom;
+  const res = finiteExtent([roots.map((r) => r.re), whole ? [-1, 1] : plane === 's' ? [0] : []]) ?? { min: -1, max: 1 };
+  const ims = finiteExtent([roots.map((r) => r.im), whole ? [-1, 1] : [0]]) ?? { min: -1, max: 1 };
+  let spanRe = res.max - res.min;
+  let spanIm = ims.max - ims.min;
+  const base = Math.max(spanRe, spanIm, whole ? 2 : 1e-9) || 1;
+  spanRe = Math.max(spanRe, base * 0.2) * 1.15;
+  spanIm = Math.max(spanIm, base * 0.2) * 1.15;
+  const perPx = Math.max(spanRe / plotW, spanIm / plotH);
+  const cRe = (res.max + res.min) / 2;
+  const cIm = (ims.max + ims.min) / 2;
+  const halfRe = (perPx * plotW) / 2;
+  const halfIm = (perPx * plotH) / 2;
+  return { re: [cRe - halfRe, cRe + halfRe], im: [cIm - halfIm, cIm + halfIm] };
+}
+

@@ -1,0 +1,353 @@
+import {
+  defaultPrewarpRadPerSec,
+  hasRootAtOrigin,
+  type DiscretizeRequest,
+  type DiscretizeResponse,
+  type DspWarning,
+  type LoopResult,
+  type MethodResult,
+  type StepResponse,
+  type RootInfo,
+} from '../../schemas/discretize';
+import type { CompensatorInput } from '../../schemas/compensator';
+import { abs, cx } from './complex';
+import { DspInputError } from './errors';
+import {
+  closedLoopPoles,
+  continuousDcGain,
+  continuousResponse,
+  continuousStep,
+  discreteDcGain,
+  discreteResponse,
+  discreteStability,
+  discreteStep,
+  evaluator,
+  findCrossings,
+  lnMagPhase,
+  logGrid,
+  pairRoots,
+  pickMargins,
+  responseAt,
+  rootInfo,
+  stepMetrics,
+  zToS,
+  type Response,
+} from './analysis';
+import { inputToZpk, zpkToTfDescending } from './lti';
+import { discretizeZpk, zohDiscretize, type DiscreteResult } from './methods';
+import { polyMul, trimLeading } from './poly';
+import type { Complex, MethodName, Zpk } from './types';
+
+/**
+ * The whole compute API answer for a parsed request (DESIGN.md "The compute API").
+ * Throws DspInputError for bad input the schema cannot see (a tf-form root beyond
+ * Nyquist, an ill-posed loop); never anything else for a request the schema accepted.
+ */
+export function runDiscretize(req: DiscretizeRequest): DiscretizeResponse {
+  try {
+    return run(req);
+  } catch (e) {
+    if (e instanceof DspInputError) throw e;
+    // Guard of the contract "never 5xx": an unforeseen numerical failure is reported as
+    // bad input naming the whole request rather than escaping as a server error.
+    throw new DspInputError('this design could not be analysed; check the compensator and the plant', [
+      { path: '', message: e instanceof Error ? e.message : String(e) },
+    ]);
+  }
+}
+
+/** Continuous model: zpk plus descending polynomials (the entered ones for tf form). */
+interface Continuous {
+  zpk: Zpk;
+  num: number[];
+  den: number[];
+}
+
+function continuousModel(input: CompensatorInput): Continuous {
+  const zpk = inputToZpk(input);
+  if (input.form === 'tf') {
+    const lead = input.den[0];
+    return { zpk, num: trimLeading(input.num).map((v) => v / lead), den: input.den.map((v) => v / lead) };
+  }
+  return { zpk, ...zpkToTfDescending(zpk) };
+}
+
+const BYINDEX: Record<MethodName, boolean> = { tustin: true, prewarp: true, 'backward-euler': true, matched: true, zoh: false };
+
+function run(req: DiscretizeRequest): DiscretizeResponse {
+  const fs = req.sampleRateHz;
+  const T = 1 / fs;
+  const nyqHz = fs / 2;
+  const nyqRad = Math.PI * fs;
+  const warnings: DspWarning[] = [];
+  const comp = continuousModel(req.compensator);
+
+  // tf-form roots are known only now: the Nyquist rule of DESIGN.md again.
+  if (req.compensator.form === 'tf') {
+    const bad: { path: string; message: string }[] = [];
+    for (const [key, roots] of [['num', comp.zpk.zeros], ['den', comp.zpk.poles]] as const) {
+      for (const r of roots) {
+        const m = abs(r);
+        if (m >= nyqRad) {
+          bad.push({
+            path: `compensator.${key}`,
+            message: `the ${key === 'num' ? 'zero' : 'pole'} s = ${fmtC(r)} rad/s (|s| = ${m.toPrecision(6)}) is at or beyond Nyquist (π·fs = ${nyqRad.toPrecision(6)} rad/s); use a sample rate above ${(m / Math.PI).toPrecision(6)} Hz`,
+          });
+        }
+      }
+    }
+    if (bad.length) throw new DspInputError('a compensator root lies at or beyond Nyquist', bad);
+  }
+
+  const w0 = req.prewarpHz !== undefined ? 2 * Math.PI * req.prewarpHz : defaultPrewarpRadPerSec(req.compensator);
+  const rootAtOrigin = hasRootAtOrigin(req.compensator);
+
+  // ---- warnings: rules of practice
+  // Common practice: keep compensator corners below fs/10 so warping and sampling
+  // delay stay small (corners up to fs/2 are accepted; at or beyond it is refused).
+  const corners = [...comp.zpk.zeros, ...comp.zpk.poles].map((r) => abs(r) / (2 * Math.PI));
+  const topCorner = Math.max(0, ...corners);
+  if (topCorner > fs / 10) {
+    warnings.push({
+      code: 'corner-near-rate',
+      message: `the compensator's highest corner, ${fmt(topCorner)} Hz, is above fs/10 = ${fmt(fs / 10)} Hz; common practice keeps corners below a tenth of the sample rate (use ≥ ${fmt(10 * topCorner)} Hz)`,
+    });
+  }
+  if (req.prewarpHz !== undefined && !req.methods.includes('prewarp') && !(req.methods.includes('matched') && rootAtOrigin)) {
+    warnings.push({
+      code: 'prewarp-unused',
+      message: 'prewarpHz is used only by the prewarp method (and by matched when the DC gain is 0 or infinite); none of the chosen methods uses it here',
+    });
+  }
+  if (req.delaySamples === 1 && !req.plant) {
+    warnings.push({ code: 'delay-unused', message: 'delaySamples applies to the loop with a plant; no plant was given, so it is not used' });
+  }
+
+  // ---- frequency grid (Hz), log-spaced up to Nyquist
+  const positive = corners.filter((c) => c > 0);
+  const lowHz = Math.max(nyqHz * 1e-7, Math.min(nyqHz / 1e3, ...(positive.length ? [Math.min(...positive) / 20] : [])));
+  const frequencyHz = logGrid(lowHz, nyqHz, req.responsePoints);
+  const omegas = frequencyHz.map((f) => 2 * Math.PI * f);
+  const bandHz = req.bandHz ?? nyqHz / 4;
+  const contResp = continuousResponse(comp.zpk, omegas);
+
+  // ---- plant and continuous loop
+  let plantOut: DiscretizeResponse['plant'];
+  let continuousLoop: LoopResult | undefined;
+  let plantD: DiscreteResult | undefined;
+  let plantC: Continuous | undefined;
+  let contLoopPoles: Complex[] = [];
+  let stepSamples = 0;
+  let fullSamples = 0;
+  if (req.plant) {
+    plantC = continuousModel(req.plant);
+    plantD = zohDiscretize(plantC.zpk, T);
+    plantOut = {
+      zeros: plantC.zpk.zeros,
+      poles: plantC.zpk.poles,
+      gain: plantC.zpk.gain,
+      discrete: { num: plantD.tf.num, den: plantD.tf.den, zeros: plantD.zpk.zeros, poles: plantD.zpk.poles, gain: plantD.zpk.gain },
+    };
+    const lNum = polyMul(comp.num, plantC.num);
+    const lDen = polyMul(comp.den, plantC.den);
+    const cl = closedLoopPoles(lNum, lDen);
+    if (!(Math.abs(cl.lead) > 1e-12 * Math.max(1, Math.abs(lDen[0])))) throw illPosed();
+    contLoopPoles = cl.poles;
+    const loopZpk: Zpk = { zeros: [...comp.zpk.zeros, ...plantC.zpk.zeros], poles: [...comp.zpk.poles, ...plantC.zpk.poles], gain: comp.zpk.gain * plantC.zpk.gain };
+    const clZpk: Zpk = { zeros: loopZpk.zeros, poles: cl.poles, gain: loopZpk.gain / cl.lead };
+    const stable = cl.poles.every((p) => p.re < 0);
+    // grid of the continuous loop: well beyond every root and beyond Nyquist
+    const rootsAll = [...loopZpk.zeros, ...loopZpk.poles, ...cl.poles].map(abs).filter((m) => m > 0);
+    const wLo = Math.min(omegas[0], ...rootsAll.map((m) => m / 100));
+    const wHi = Math.max(10 * nyqRad, ...rootsAll.map((m) => m * 100));
+    const le = evaluator(loopZpk);
+    const crossings = findCrossings((w) => lnMagPhase(le, 0, w), wLo, wHi);
+    const horizon = stepHorizon(cl.poles, T);
+    const nc = Math.min(1000, 4 * horizon.steps);
+    const h = (horizon.steps * T) / nc;
+    const y = stable ? continuousStep(clZpk, h, nc) : [];
+    const full = stepMetrics(y.map((_, k) => k * h), y, stable ? continuousDcGain(clZpk) : null);
+    // Window shown and simulated for the sampled loops: 3× the continuous settling time.
+    const settle = full.settlingTimeSec;
+    stepSamples = settle !== null ? Math.max(20, Math.min(horizon.steps, Math.ceil((3 * settle) / T))) : horizon.steps;
+    fullSamples = horizon.steps;
+    const shown = Math.min(y.length, Math.floor((stepSamples * T) / h + 1e-9) + 1);
+    continuousLoop = {
+      closedLoopPoles: cl.poles.map((p) => rootInfo(null, p, p)),
+      stable,
+      margins: pickMargins(crossings),
+      step: { ...thin(full, shown) },
+    };
+    // Common practice: sample 10–30× the closed-loop bandwidth; warn below 10×.
+    const bw = closedLoopBandwidthRad(loopZpk, wLo, wHi);
+    if (bw !== null && fs < (10 * bw) / (2 * Math.PI)) {
+      warnings.push({
+        code: 'rate-low-for-bandwidth',
+        message: `the sample rate is ${fmt(fs / (bw / (2 * Math.PI)))}× the continuous closed-loop bandwidth (${fmt(bw / (2 * Math.PI))} Hz); common practice samples 10–30× the closed-loop bandwidth (use ≥ ${fmt((10 * bw) / (2 * Math.PI))} Hz)`,
+      });
+    }
+  }
+
+  // ---- methods
+  const methods: DiscretizeResponse['methods'] = {};
+  for (const method of req.methods) {
+    const d = discretizeZpk(comp.zpk, method, fs, w0 !== null ? { prewarpRadPerSec: w0 } : {});
+    const usesW0 = method === 'prewarp' || (method === 'matched' && rootAtOrigin);
+    const zeroOrigin = pairRoots(d.zpk.zeros, comp.zpk.zeros, T, BYINDEX[method]);
+    const poleOrigin = pairRoots(d.zpk.poles, comp.zpk.poles, T, true);
+    const resp = discreteResponse(d.zpk, omegas, T, contResp);
+    const errs = bandErrors(comp.zpk, d.zpk, T, frequencyHz, bandHz, contResp, resp, resp.shiftDeg);
+    const stab = discreteStability(d.zpk.poles);
+    const result: MethodResult = {
+      method,
+      num: d.tf.num,
+      den: d.tf.den,
+      gain: d.zpk.gain,
+      zeros: d.zpk.zeros,
+      poles: d.zpk.poles,
+      zeroInfo: d.zpk.zeros.map((z, i) => rootInfo(z, zToS(z, T), zeroOrigin[i])),
+      poleInfo: d.zpk.poles.map((p, i) => rootInfo(p, zToS(p, T), poleOrigin[i])),
+      dcGain: discreteDcGain(d.zpk),
+      stable: stab.stable,
+      marginal: stab.marginal,
+      prewarpRadPerSec: usesW0 ? w0 : null,
+      response: { magnitudeDb: resp.magnitudeDb, phaseDeg: resp.phaseDeg },
+      ...errs,
+    };
+    if (plantD && plantC && continuousLoop) {
+      const loop = discreteLoop(d, plantD, req.delaySamples, T, contLoopPoles, omegas[0], stepSamples, fullSamples);
+      result.closedLoopPoles = loop.closedLoopPoles.map((p) => p.z as Complex);
+      result.loop = loop;
+      if (continuousLoop.stable && !loop.stable) {
+        warnings.push({ code: 'loop-unstable-after-sampling', message: `${method}: the sampled loop is not stable although the continuous loop is` });
+      }
+    }
+    methods[method] = result;
+  }
+
+  return {
+    sampleRateHz: fs,
+    periodSec: T,
+    nyquistHz: nyqHz,
+    bandHz,
+    prewarpHz: w0 !== null ? w0 / (2 * Math.PI) : null,
+    delaySamples: req.delaySamples,
+    frequencyHz,
+    continuous: {
+      zeros: comp.zpk.zeros,
+      poles: comp.zpk.poles,
+      gain: comp.zpk.gain,
+      numDescending: comp.num,
+      denDescending: comp.den,
+      zeroInfo: comp.zpk.zeros.map((z) => rootInfo(null, z, z)),
+      poleInfo: comp.zpk.poles.map((p) => rootInfo(null, p, p)),
+      dcGain: continuousDcGain(comp.zpk),
+      response: contResp,
+    },
+    methods,
+    ...(plantOut ? { plant: plantOut } : {}),
+    ...(continuousLoop ? { continuousLoop } : {}),
+    warnings,
+  };
+}
+
+function illPosed(): DspInputError {
+  return new DspInputError('the loop is ill-posed: 1 + C(∞)·P(∞) = 0', [
+    { path: 'plant', message: 'the closed loop has no proper transfer function with this plant (1 + C·P vanishes at infinite frequency)' },
+  ]);
+}
+
+/** Largest |Δ dB| and |Δ deg| on grid points up to bandHz and at bandHz itself. */
+function bandErrors(cont: Zpk, disc: Zpk, T: number, fHz: number[], bandHz: number, c: Response, d: Response, shiftDeg: number) {
+  let mag = { v: 0, f: Math.min(bandHz, fHz[0]) };
+  let ph = { v: 0, f: Math.min(bandHz, fHz[0]) };
+  const consider = (f: number, cm: number, cp: number, dm: number, dp: number) => {
+    const em = Math.abs(dm - cm);
+    const ep = Math.abs(dp - cp);
+    if (em > mag.v) mag = { v: em, f };
+    if (ep > ph.v) ph = { v: ep, f };
+  };
+  for (let i = 0; i < fHz.length && fHz[i] <= bandHz; i++) consider(fHz[i], c.magnitudeDb[i], c.phaseDeg[i], d.magnitudeDb[i], d.phaseDeg[i]);
+  const w = 2 * Math.PI * bandHz;
+  const rc = responseAt(cont, cx(0, w));
+  const rd = responseAt(disc, cx(Math.cos(w * T), Math.sin(w * T)));
+  consider(bandHz, rc.db, rc.deg, rd.db, rd.deg + shiftDeg);
+  return { maxMagnitudeErrorDb: mag.v, maxMagnitudeErrorAtHz: mag.f, maxPhaseErrorDeg: ph.v, maxPhaseErrorAtHz: ph.f };
+}
+
+/** Step window: ~8 time constants of the slowest continuous closed-loop pole, 20…2000 samples. */
+function stepHorizon(poles: Complex[], T: number): { steps: number } {
+  const decays = poles.map((p) => -p.re).filter((s) => s > 0);
+  const slowest = decays.length ? Math.min(...decays) : 0;
+  const seconds = slowest > 0 ? 8 / slowest : 200 * T;
+  return { steps: Math.max(20, Math.min(MAX_STEP_SAMPLES, Math.ceil(seconds / T))) };
+}
+/** Longest simulated step (samples of T) and most points sent per step response. */
+const MAX_STEP_SAMPLES = 2000;
+const MAX_STEP_POINTS = 400;
+
+/** Metrics on the full simulation; the arrays sent are thinned to ≤ MAX_STEP_POINTS (last point kept). */
+function stepOut(y: number[], h: number, finalValue: number | null): StepResponse {
+  return thin(stepMetrics(y.map((_, k) => k * h), y, finalValue), y.length);
+}
+
+/** The first `count` points of a step, thinned to ≤ MAX_STEP_POINTS (the last one kept). */
+function thin(m: StepResponse, count: number): StepResponse {
+  const stride = Math.ceil(count / MAX_STEP_POINTS);
+  const keep = (_: number, k: number) => k < count && (k % stride === 0 || k === count - 1);
+  return { ...m, timeSec: m.timeSec.filter(keep), output: m.output.filter(keep) };
+}
+
+/** −3 dB bandwidth of the continuous closed loop L/(1 + L), rad/s; null when none is found. */
+function closedLoopBandwidthRad(loop: Zpk, lo: number, hi: number): number | null {
+  const ws = logGrid(lo, hi, 200);
+  const e = evaluator(loop);
+  const tmag = (w: number) => {
+    const { lnMag, ph } = lnMagPhase(e, 0, w);
+    const m = Math.exp(lnMag);
+    return m / Math.hypot(1 + m * Math.cos(ph), m * Math.sin(ph));
+  };
+  const t0 = tmag(ws[0]);
+  if (!(t0 > 0) || !Number.isFinite(t0)) return null;
+  for (const w of ws) if (tmag(w) < t0 / Math.SQRT2) return w;
+  return null;
+}
+
+/** The sampled loop: compensator by `method`, plant by ZOH, optional one-sample delay. */
+function discreteLoop(
+  c: DiscreteResult,
+  p: DiscreteResult,
+  delay: 0 | 1,
+  T: number,
+  contPoles: Complex[],
+  wLo: number,
+  steps: number,
+  maxSteps: number,
+): LoopResult {
+  const lNum = polyMul(c.tf.num, p.tf.num);
+  const lDen = polyMul(c.tf.den, p.tf.den);
+  const cl = closedLoopPoles(lNum, lDen, delay);
+  if (!(Math.abs(cl.lead) > 1e-12)) throw illPosed();
+  const loopZpk: Zpk = {
+    zeros: [...c.zpk.zeros, ...p.zpk.zeros],
+    poles: [...c.zpk.poles, ...p.zpk.poles, ...new Array(delay).fill(null).map(() => cx(0))],
+    gain: c.zpk.gain * p.zpk.gain,
+  };
+  const stab = discreteStability(cl.poles);
+  const origin = pairRoots(cl.poles, contPoles, T, false);
+  const le = evaluator(loopZpk);
+  const crossings = findCrossings((w) => lnMagPhase(le, Math.cos(w * T), Math.sin(w * T)), Math.min(wLo, Math.PI / T / 1e4), Math.PI / T);
+  const clZpk: Zpk = { zeros: loopZpk.zeros, poles: cl.poles, gain: loopZpk.gain / cl.lead };
+  const dc = stab.stable ? discreteDcGain(clZpk) : null;
+  let step = stepOut(stab.stable ? discreteStep(clZpk, steps) : [], T, dc);
+  if (stab.stable && step.settlingTimeSec === null && maxSteps > steps) step = stepOut(discreteStep(clZpk, maxSteps), T, dc);
+  return {
+    closedLoopPoles: cl.poles.map((z, i) => rootInfo(z, zToS(z, T), origin[i])),
+    stable: stab.stable,
+    margins: pickMargins(crossings),
+    step,
+  };
+}
+
+const fmt = (v: number) => Number(v.toPrecision(3)).toString();
+const fmtC = (r: Complex) => (r.im === 0 ? `${r.re.toPrecision(6)}` : `${r.re.toPrecision(6)}${r.im < 0 ? '−' : '+'}${Math.abs(r.im).toPrecision(6)}j`);

@@ -1,0 +1,1 @@
+export { ImplementationRouteScreen as default } from '../../../components/implementation/ImplementationScreen';

@@ -135,6 +135,7 @@ export async function buildBundle(input: BundleInput): Promise<Bundle> {
       file: 'test/vectors.csv',
       samples: vectors.rows.length,
       segments: vectors.segments,
+      limitsReached: vectors.limitsReached,
       bound: {
         value: vectors.bound,
         units: built.impl.kind === 'fixed' ? 'output counts' : 'real output units',

@@ -230,6 +230,7 @@ export function renderFiles(ctx: BundleContext, impl: Implementation, vectors: V
     sampleCount: vectors.rows.length,
     segmentsText: vectors.segments.map((s) => `${s.name} (n = ${s.start}…${s.start + s.length - 1})`).join(', '),
     boundText: vectors.bound.toPrecision(4),
+    limitsReached: vectors.limitsReached,
     uLines: lines(vectors.rows.map((r) => r.uRaw)),
     yLines: lines(vectors.rows.map((r) => r.yRaw)),
   };

@@ -250,6 +250,9 @@ export interface Vectors {
   limitAmplitude: number;
   /** Bound on |y_raw − ideal| while nothing saturates (see referenceBound). */
   bound: number;
+  /** Whether the limit segment reached an output limit (not possible when even a full-scale
+   *  input cannot move the output that far within the segment, e.g. a slow lag). */
+  limitsReached: boolean;
 }
 
 function vectorPlan(impl: Implementation) {
@@ -292,5 +295,7 @@ export function generateVectors(discrete: DiscreteDesign, settings: Implementati
     y: fixed ? y[n] * settings.outputScale : y[n],
   }));
   const bound = referenceBound(impl, discrete.tf, gainFold, u.length, Math.max(...u.map(Math.abs)), nodeMax);
-  return { rows, segments, amplitude: plan.amplitude, limitAmplitude: plan.limitAmplitude, bound };
+  const seg = segments.find((g) => g.name === 'limits')!;
+  const limitsReached = rows.slice(seg.start).some((r) => r.yRaw === impl.outputMax || r.yRaw === impl.outputMin);
+  return { rows, segments, amplitude: plan.amplitude, limitAmplitude: plan.limitAmplitude, bound, limitsReached };
 }

@@ -10,8 +10,10 @@ export default function AppLayout() {
   const { status, current, refetch, error } = useSession();
   const pathname = usePathname();
   // While this layout renders no <Slot />, Expo Router on the web rewrites the URL to the
-  // group's index route, so the path asked for is the one seen on the first render.
+  // group's index route, so the path to come back to is the first one seen, or the last
+  // one shown while signed in (when the session ends on its own).
   const requested = useRef(pathname);
+  if (status === 'signed-in') requested.current = pathname;
 
   if (status === 'error') {
     return (

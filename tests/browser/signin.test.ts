@@ -18,6 +18,11 @@ beforeAll(async () => {
   browser = await launchBrowser();
 });
 
+// each test starts signed out
+beforeEach(async () => {
+  await browser.context.clearCookies();
+});
+
 afterAll(async () => {
   await browser?.close();
   await server?.stop();
@@ -185,6 +190,76 @@ test('at 1440 px: side navigation; an owner adds a member and sees the one-time 
   await page.getByTestId(`member-row-${email}`).waitFor();
   expect(await password.count()).toBe(0);
 
+  await page.getByTestId('sign-out').click();
+  await page.waitForURL((url) => url.pathname === '/sign-in');
+  expect(errors).toEqual([]);
+  await page.close();
+});
+
+test('the workspace switcher changes the role shown, and the choice survives a reload', async () => {
+  const second = { slug: 'harbor-pumps', name: 'Harbor Pump Controls' };
+  await server.db('workspaces').insert(second);
+  const ws = await server.db('workspaces').where({ slug: second.slug }).first();
+  const engineer = await server.db('users').where({ email: 'engineer@example.com' }).first();
+  await server.db('memberships').insert({ workspace_id: ws.id, user_id: engineer.id, role: 'viewer' });
+
+  const { page, errors } = await browser.newPage(VIEWPORTS.wide);
+  await page.goto(`${server.baseUrl}/sign-in`);
+  await fillSignIn(page, 'engineer@example.com', DEMO_PASSWORD);
+  await page.getByTestId('workspace-switcher').click();
+  await page.getByTestId(`workspace-option-${DEMO_WORKSPACE.slug}`).click();
+  await signedInAs(page, 'engineer');
+
+  await page.getByTestId('workspace-switcher').click();
+  await page.getByTestId(`workspace-option-${second.slug}`).click();
+  await signedInAs(page, 'viewer');
+  expect(await page.getByTestId('workspace-switcher').innerText()).toContain(second.name);
+
+  // the member list follows the workspace: only the engineer belongs to the second one
+  await page.getByTestId('nav-members').click();
+  await page.getByTestId('member-row-engineer@example.com').waitFor();
+  expect(await page.getByTestId('member-row-owner@example.com').count()).toBe(0);
+
+  await page.reload();
+  await signedInAs(page, 'viewer');
+  expect(await page.getByTestId('workspace-switcher').innerText()).toContain(second.name);
+
+  await page.getByTestId('workspace-switcher').click();
+  await page.getByTestId(`workspace-option-${DEMO_WORKSPACE.slug}`).click();
+  await signedInAs(page, 'engineer');
+  await page.getByTestId('member-row-owner@example.com').waitFor();
+  await page.getByTestId('sign-out').click();
+  await page.waitForURL((url) => url.pathname === '/sign-in');
+  expect(errors).toEqual([]);
+  await page.close();
+});
+
+test('the cautions are reachable from the shell at both widths; an owner can edit roles on a phone', async () => {
+  const { page, errors } = await browser.newPage(VIEWPORTS.phone);
+  await page.goto(`${server.baseUrl}/sign-in?next=%2Fmembers`);
+  await fillSignIn(page, 'owner@example.com', DEMO_PASSWORD);
+  await page.waitForURL((url) => url.pathname === '/members');
+  await signedInAs(page, 'owner');
+  await page.getByTestId('member-role-viewer@example.com-viewer').waitFor();
+  expect(await page.getByTestId('member-role-viewer@example.com-viewer').getAttribute('aria-checked')).toBe('true');
+  await screenshot(page, 'members-owner-390');
+
+  await page.getByTestId('account-menu').click();
+  await page.getByTestId('account-about').click();
+  await page.waitForURL((url) => url.pathname === '/about');
+  const cautions = await page.getByTestId('cautions').innerText();
+  expect(cautions).toMatch(/current and travel limits/);
+  expect(cautions).toMatch(/not certified for safety-related use/);
+  expect(cautions).toMatch(/functional-safety standard/);
+  await screenshot(page, 'about-390');
+
+  await page.setViewportSize(VIEWPORTS.wide);
+  await page.getByTestId('side-nav').waitFor();
+  await page.getByTestId('nav-overview').click();
+  await page.waitForURL((url) => url.pathname === '/');
+  await page.getByTestId('nav-about').click();
+  await page.waitForURL((url) => url.pathname === '/about');
+  await page.getByTestId('cautions').waitFor();
   await page.getByTestId('sign-out').click();
   await page.waitForURL((url) => url.pathname === '/sign-in');
   expect(errors).toEqual([]);

@@ -87,7 +87,9 @@ export function createCsrf() {
       const h = req.headers['x-csrf-token'];
       return Array.isArray(h) ? h[0] : h;
     },
-    skipCsrfProtection: (req) => /^Bearer\s/i.test(req.headers.authorization ?? ''),
+    // nothing to protect without a signed-in session (the route answers 401); API-token
+    // requests carry no cookie authority
+    skipCsrfProtection: (req) => !req.user || /^Bearer\s/i.test(req.headers.authorization ?? ''),
     errorConfig: { statusCode: 403, code: 'EBADCSRFTOKEN', message: 'invalid csrf token' },
   });
 }

@@ -2,8 +2,8 @@ import { abs, cx, div, exp, expm1, mul, scale, sub } from './complex';
 import { DspInputError } from './errors';
 import { complexDet } from './linalg';
 import { evalZpk, zpkToDiscreteTf } from './lti';
-import { polyFromRoots, polyRoots, trimLeading } from './poly';
-import { zohSs, zpkToSs } from './realization';
+import { eigenvalues, polyFromRoots, polyRoots, trimLeading } from './poly';
+import { zohSs, zpkToSs, type StateSpace } from './realization';
 import type { Complex, DiscreteTf, MethodName, Zpk } from './types';
 
 /**
@@ -118,7 +118,7 @@ export function zohDiscretize(cont: Zpk, periodSec: number): DiscreteResult {
     return { zpk: { zeros: [], poles: [], gain: cont.gain }, tf: { num: [cont.gain], den: [1] } };
   }
   const ss = zpkToSs(cont);
-  const { phi, gamma } = zohSs(ss, T);
+  const { phi, gamma, phiMinusI } = zohSs(ss, T);
   const values: Complex[] = [];
   for (let k = 0; k <= n; k++) {
     const th = (Math.PI * (2 * k + 1)) / (n + 1);
@@ -145,8 +145,50 @@ export function zohDiscretize(cont: Zpk, periodSec: number): DiscreteResult {
   asc[n] = ss.d;
   const num = asc.reverse();
   const trimmed = trimLeading(num);
-  const zpk: Zpk = { zeros: trimmed.length > 1 || trimmed[0] !== 0 ? polyRoots(trimmed) : [], poles, gain: trimmed[0] };
-  return { zpk, tf: { num, den } };
+  const zeros = zohZeros(ss, phi, gamma, phiMinusI) ?? (trimmed.length > 1 ? polyRoots(trimmed) : []);
+  // s = 0 → z = 1 exactly: a continuous zero at the origin stays a discrete zero at 1
+  // (step invariance: H_d(1) = H(0) = 0).
+  const originZeros = cont.zeros.filter((z) => z.re === 0 && z.im === 0).length;
+  for (let k = 0; k < originZeros; k++) {
+    let best = -1;
+    zeros.forEach((z, i) => {
+      if (z.im === 0 && (best < 0 || Math.abs(z.re - 1) < Math.abs(zeros[best].re - 1))) best = i;
+    });
+    if (best >= 0) zeros[best] = cx(1);
+  }
+  return { zpk: { zeros, poles, gain: trimmed[0] }, tf: { num, den } };
+}
+
+/**
+ * Transmission zeros of the discrete model (Φ, Γ, C, D), computed as w = z − 1 so the
+ * zeros clustered near z = 1 at high rates keep their relative accuracy:
+ * D ≠ 0: z − 1 = eig((Φ − I) − ΓC/D); D = 0 with CΓ ≠ 0: the zero dynamics
+ * x⁺ = (I − Γ(CΓ)⁻¹C)Φx give z − 1 = eig((Φ − I) − Γ(CΓ)⁻¹CΦ), less the one
+ * eigenvalue at z = 0 (w = −1) that direction Γ contributes. Null when CΓ vanishes
+ * (relative degree above one; the caller falls back to the numerator's roots).
+ */
+function zohZeros(ss: StateSpace, phi: number[][], gamma: number[], phiMinusI: number[][]): Complex[] | null {
+  let m: number[][];
+  let dropOne = false;
+  if (ss.d !== 0) {
+    m = phiMinusI.map((row, i) => row.map((v, j) => v - (gamma[i] * ss.c[j]) / ss.d));
+  } else {
+    const cg = ss.c.reduce((acc, v, i) => acc + v * gamma[i], 0);
+    const scale = Math.sqrt(ss.c.reduce((a, v) => a + v * v, 0) * gamma.reduce((a, v) => a + v * v, 0));
+    if (!(Math.abs(cg) > 1e-9 * scale)) return null;
+    const cphi = ss.c.map((_, j) => ss.c.reduce((acc, v, k) => acc + v * phi[k][j], 0));
+    m = phiMinusI.map((row, i) => row.map((v, j) => v - (gamma[i] * cphi[j]) / cg));
+    dropOne = true;
+  }
+  const w = eigenvalues(m);
+  if (dropOne) {
+    let best = 0;
+    w.forEach((v, i) => {
+      if (Math.hypot(v.re + 1, v.im) < Math.hypot(w[best].re + 1, w[best].im)) best = i;
+    });
+    w.splice(best, 1);
+  }
+  return w.map((v) => cx(1 + v.re, v.im));
 }
 
 /** T and the bilinear constant for a method of the Tustin family. */

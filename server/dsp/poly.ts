@@ -146,11 +146,7 @@ export function polyRoots(pIn: readonly number[]): Complex[] {
   const m = Matrix.zeros(n, n);
   for (let j = 0; j < n; j++) m.set(0, j, -q[j + 1]);
   for (let i = 1; i < n; i++) m.set(i, i - 1, 1);
-  balance(m);
-  const evd = new EigenvalueDecomposition(m, { assumeSymmetric: false });
-  const re = evd.realEigenvalues;
-  const im = evd.imaginaryEigenvalues;
-  let roots: Complex[] = re.map((r, i) => cx(r * sigma, im[i] * sigma));
+  let roots: Complex[] = eigenvaluesOf(m).map((r) => cx(r.re * sigma, r.im * sigma));
   roots = roots.map((r, i) => {
     let sep = Infinity;
     roots.forEach((o, j) => {
@@ -159,6 +155,19 @@ export function polyRoots(pIn: readonly number[]): Complex[] {
     return sep > 1e-3 * Math.max(abs(r), 1e-300) ? newtonPolish(p, r) : r;
   });
   return [...enforceConjugates(roots), ...zeroRoots];
+}
+
+/** Eigenvalues of a small real matrix (balanced, then ml-matrix's Hessenberg–QR), conjugates exact. */
+export function eigenvalues(rows: number[][]): Complex[] {
+  if (rows.length === 0) return [];
+  return enforceConjugates(eigenvaluesOf(new Matrix(rows)));
+}
+
+function eigenvaluesOf(m: Matrix): Complex[] {
+  balance(m);
+  const evd = new EigenvalueDecomposition(m, { assumeSymmetric: false });
+  const im = evd.imaginaryEigenvalues;
+  return evd.realEigenvalues.map((r, i) => cx(r, im[i]));
 }
 
 /** Roots of a x² + b x + c without cancellation. */

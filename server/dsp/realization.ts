@@ -1,5 +1,5 @@
 import { splitRoots } from './poly';
-import { expm, type Mat, zeros as matZeros } from './linalg';
+import { expm, matMul, type Mat, zeros as matZeros } from './linalg';
 import type { Zpk } from './types';
 
 /**
@@ -122,17 +122,23 @@ export function zpkToSs(zpk: Zpk): StateSpace {
 
 /**
  * Zero-order-hold (step-invariant) discretization of a state-space model:
- * [[Φ, Γ], [0, 1]] = expm([[A, B], [0, 0]]·T) (the augmented-matrix form used by
- * scipy.signal.cont2discrete 'zoh'). Returns Φ and Γ; C and D are unchanged.
+ * [[Φ, Γ, Ψ], [0, 1, 0], [0, 0, I]] = expm([[A, B, I], [0, 0, 0], [0, 0, 0]]·T)
+ * (the augmented-matrix form used by scipy.signal.cont2discrete 'zoh', with the identity
+ * block added to get Ψ = ∫₀ᵀ e^{Aτ} dτ). Returns Φ, Γ = ΨB and Φ − I = AΨ, the last
+ * formed by a product, not a subtraction, so it keeps its digits when Φ ≈ I.
+ * C and D are unchanged.
  */
-export function zohSs(ss: StateSpace, periodSec: number): { phi: Mat; gamma: number[] } {
+export function zohSs(ss: StateSpace, periodSec: number): { phi: Mat; gamma: number[]; phiMinusI: Mat } {
   const n = ss.a.length;
-  const m = matZeros(n + 1, n + 1);
+  const size = 2 * n + 1;
+  const m = matZeros(size, size);
   for (let i = 0; i < n; i++) {
     for (let j = 0; j < n; j++) m[i][j] = ss.a[i][j] * periodSec;
     m[i][n] = ss.b[i] * periodSec;
+    m[i][n + 1 + i] = periodSec;
   }
   const e = expm(m);
-  return { phi: e.slice(0, n).map((r) => r.slice(0, n)), gamma: e.slice(0, n).map((r) => r[n]) };
+  const psi = e.slice(0, n).map((r) => r.slice(n + 1));
+  const phiMinusI = matMul(ss.a, psi);
+  return { phi: e.slice(0, n).map((r) => r.slice(0, n)), gamma: e.slice(0, n).map((r) => r[n]), phiMinusI };
 }
-

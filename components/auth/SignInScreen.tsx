@@ -1,4 +1,5 @@
 import { useRef, useState } from 'react';
+import Head from 'expo-router/head';
 import { KeyboardAvoidingView, Platform, Pressable, ScrollView, TextInput, View } from 'react-native';
 import { loginRequestSchema, type LoginRequest } from '../../schemas/auth';
 import { isApiRequestError } from '../data/api';
@@ -60,6 +61,9 @@ export function SignInScreen() {
 
   return (
     <KeyboardAvoidingView behavior={Platform.OS === 'ios' ? 'padding' : undefined} style={{ flex: 1, backgroundColor: colors.background }}>
+      <Head>
+        <title>Sign in · Samplewright</title>
+      </Head>
       <ScrollView contentContainerStyle={{ flexGrow: 1, justifyContent: 'center', padding: space.lg }}>
         <View style={{ width: '100%', maxWidth: 420, alignSelf: 'center', gap: space.xl, paddingVertical: space.xl }}>
           <View style={{ alignItems: 'center', gap: space.md }}>
@@ -67,7 +71,7 @@ export function SignInScreen() {
             <View style={{ alignItems: 'center', gap: space.xs }}>
               <Text variant="heading">Samplewright</Text>
               <Text tone="textMuted" style={{ textAlign: 'center' }}>
-                From an analog compensator to reviewed fixed-point C.
+                From an analog compensator to reviewed fixed‑point C.
               </Text>
             </View>
           </View>

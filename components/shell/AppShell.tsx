@@ -1,6 +1,6 @@
 import { useState, type ReactNode } from 'react';
 import { Modal, Pressable, View, useWindowDimensions } from 'react-native';
-import { Link, usePathname } from 'expo-router';
+import { Link, router, usePathname } from 'expo-router';
 import { useSafeAreaInsets } from 'react-native-safe-area-context';
 import { useCurrentWorkspace, useSession, useSignOut } from '../data/session';
 import { ROLE_LABELS } from '../roles';
@@ -268,19 +268,20 @@ function PhoneShell({ children }: { children: ReactNode }) {
             <Text>
               {ROLE_LABELS[role]} in {workspace.name}
             </Text>
-            <Link href="/about" asChild>
-              <Pressable
-                testID="account-about"
-                accessibilityRole="link"
-                onPress={() => setAccountOpen(false)}
-                style={{ flexDirection: 'row', alignItems: 'center', gap: space.sm }}
-              >
-                <InfoIcon color={colors.primary} size={18} />
-                <Text variant="bodyMedium" tone="primary">
-                  About and cautions
-                </Text>
-              </Pressable>
-            </Link>
+            <Pressable
+              testID="account-about"
+              accessibilityRole="link"
+              onPress={() => {
+                setAccountOpen(false);
+                router.push('/about');
+              }}
+              style={{ flexDirection: 'row', alignItems: 'center', gap: space.sm }}
+            >
+              <InfoIcon color={colors.primary} size={18} />
+              <Text variant="bodyMedium" tone="primary">
+                About and cautions
+              </Text>
+            </Pressable>
             <SignOutButton />
           </Pressable>
         </Pressable>

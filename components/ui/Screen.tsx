@@ -1,6 +1,7 @@
 import type { ReactNode } from 'react';
 import { ScrollView, View, useWindowDimensions } from 'react-native';
 import { Link } from 'expo-router';
+import Head from 'expo-router/head';
 import { useTheme } from '../theme';
 import { Text } from './Text';
 
@@ -31,6 +32,9 @@ export function Screen({ title, subtitle, actions, children, maxWidth = 960, tes
       style={{ flex: 1, backgroundColor: colors.background }}
       contentContainerStyle={{ paddingHorizontal: pad, paddingTop: wide ? space.xxl : space.xl, paddingBottom: space.xxl, flexGrow: 1 }}
     >
+      <Head>
+        <title>{`${title} · Samplewright`}</title>
+      </Head>
       <View style={{ width: '100%', maxWidth, alignSelf: 'center', flexGrow: 1, gap: space.xl }}>
         <View
           style={{

@@ -117,6 +117,7 @@ test('at 390 px: a deep link asks for sign-in, comes back to the page, survives 
   await signedInAs(page, 'engineer');
   await page.getByTestId('member-row-viewer@example.com').waitFor();
   expect(new URL(page.url()).pathname).toBe('/members');
+  expect(await page.title()).toBe('Members · Samplewright');
 
   await page.getByTestId('nav-overview').click();
   await page.waitForURL((url) => url.pathname === '/');
@@ -247,6 +248,7 @@ test('the cautions are reachable from the shell at both widths; an owner can edi
   await page.getByTestId('account-menu').click();
   await page.getByTestId('account-about').click();
   await page.waitForURL((url) => url.pathname === '/about');
+  await page.getByTestId('account-panel').waitFor({ state: 'hidden' });
   const cautions = await page.getByTestId('cautions').innerText();
   expect(cautions).toMatch(/current and travel limits/);
   expect(cautions).toMatch(/not certified for safety-related use/);

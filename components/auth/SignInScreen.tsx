@@ -3,6 +3,7 @@ import Head from 'expo-router/head';
 import { KeyboardAvoidingView, Platform, Pressable, ScrollView, TextInput, View } from 'react-native';
 import { loginRequestSchema, type LoginRequest } from '../../schemas/auth';
 import { isApiRequestError } from '../data/api';
+import { fieldErrorsOf, issuesOfZodError, type FieldErrors } from '../data/field-errors';
 import { useSignIn } from '../data/session';
 import { useTheme } from '../theme';
 import { Button } from '../ui/Button';
@@ -11,7 +12,6 @@ import { MarkIcon } from '../ui/icons';
 import { Text } from '../ui/Text';
 import { TextField } from '../ui/TextField';
 
-type FieldErrors = Partial<Record<keyof LoginRequest, string>>;
 
 export const DEMO_ACCOUNTS = [
   { email: 'owner@example.com', role: 'Owner' },
@@ -21,13 +21,7 @@ export const DEMO_ACCOUNTS = [
 ] as const;
 export const DEMO_PASSWORD = 'samplewright-demo';
 
-function fieldErrorsOf(issues: { path: string; message: string }[]): FieldErrors {
-  const errors: FieldErrors = {};
-  for (const issue of issues) {
-    if ((issue.path === 'email' || issue.path === 'password') && !errors[issue.path]) errors[issue.path] = issue.message;
-  }
-  return errors;
-}
+const LOGIN_FIELDS = ['email', 'password'] as const;
 
 /** The (auth) layout sends a signed-in user on (see app/(auth)/_layout.tsx). */
 export function SignInScreen() {
@@ -35,7 +29,7 @@ export function SignInScreen() {
   const signIn = useSignIn();
   const passwordRef = useRef<TextInput>(null);
   const [form, setForm] = useState<LoginRequest>({ email: '', password: '' });
-  const [fieldErrors, setFieldErrors] = useState<FieldErrors>({});
+  const [fieldErrors, setFieldErrors] = useState<FieldErrors<keyof LoginRequest>>({});
   const [formError, setFormError] = useState<string | null>(null);
 
   const update = (key: keyof LoginRequest) => (text: string) => {
@@ -47,13 +41,13 @@ export function SignInScreen() {
     setFormError(null);
     const parsed = loginRequestSchema.safeParse(form);
     if (!parsed.success) {
-      setFieldErrors(fieldErrorsOf(parsed.error.issues.map((i) => ({ path: i.path.join('.'), message: i.message }))));
+      setFieldErrors(fieldErrorsOf(issuesOfZodError(parsed.error), LOGIN_FIELDS));
       return;
     }
     setFieldErrors({});
     signIn.mutate(parsed.data, {
       onError: (error) => {
-        if (isApiRequestError(error, 400) && error.issues.length > 0) setFieldErrors(fieldErrorsOf(error.issues));
+        if (isApiRequestError(error, 400) && error.issues.length > 0) setFieldErrors(fieldErrorsOf(error.issues, LOGIN_FIELDS));
         setFormError(error.message);
       },
     });

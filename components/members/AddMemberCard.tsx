@@ -3,6 +3,7 @@ import { View } from 'react-native';
 import type { Role } from '../../schemas/auth';
 import { addMemberRequestSchema, type Member } from '../../schemas/workspace';
 import { isApiRequestError } from '../data/api';
+import { fieldErrorsOf, issuesOfZodError, type FieldErrors } from '../data/field-errors';
 import { useAddMember } from '../data/members';
 import { ROLE_LABELS, ROLE_OPTIONS, ROLE_SUMMARIES } from '../roles';
 import { useTheme } from '../theme';
@@ -12,19 +13,12 @@ import { Segmented } from '../ui/Segmented';
 import { Text } from '../ui/Text';
 import { TextField } from '../ui/TextField';
 
-type Errors = Partial<Record<'email' | 'name' | 'role', string>>;
+const MEMBER_FIELDS = ['email', 'name', 'role'] as const;
+type Errors = FieldErrors<(typeof MEMBER_FIELDS)[number]>;
 
 interface Added {
   member: Member;
   initialPassword?: string;
-}
-
-function errorsFrom(issues: { path: string; message: string }[]): Errors {
-  const errors: Errors = {};
-  for (const { path, message } of issues) {
-    if ((path === 'email' || path === 'name' || path === 'role') && !errors[path]) errors[path] = message;
-  }
-  return errors;
 }
 
 /** Owners add a person by e-mail; a new account's password is shown here exactly once. */
@@ -42,7 +36,7 @@ export function AddMemberCard({ workspaceId }: { workspaceId: number }) {
     setFormError(null);
     const parsed = addMemberRequestSchema.safeParse({ email, name: name.trim() === '' ? undefined : name, role });
     if (!parsed.success) {
-      setErrors(errorsFrom(parsed.error.issues.map((i) => ({ path: i.path.join('.'), message: i.message }))));
+      setErrors(fieldErrorsOf(issuesOfZodError(parsed.error), MEMBER_FIELDS));
       return;
     }
     setErrors({});
@@ -53,7 +47,7 @@ export function AddMemberCard({ workspaceId }: { workspaceId: number }) {
         setName('');
       },
       onError: (error) => {
-        if (isApiRequestError(error, 400)) setErrors(errorsFrom(error.issues));
+        if (isApiRequestError(error, 400)) setErrors(fieldErrorsOf(error.issues, MEMBER_FIELDS));
         setFormError(error.message);
       },
     });

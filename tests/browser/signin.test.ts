@@ -155,7 +155,7 @@ test('every demo user sees their own role', async () => {
   await page.close();
 });
 
-test('at 1440 px: side navigation; an owner adds a member and sees the one-time password once', async () => {
+test('at 1440 px: side navigation; an owner adds a member (one-time password shown once), cannot step down as the only owner, removes the member', async () => {
   const { page, errors } = await browser.newPage(VIEWPORTS.wide);
   await page.goto(`${server.baseUrl}/`);
   await page.waitForURL((url) => url.pathname === '/sign-in');
@@ -190,6 +190,24 @@ test('at 1440 px: side navigation; an owner adds a member and sees the one-time 
   await page.reload();
   await page.getByTestId(`member-row-${email}`).waitFor();
   expect(await password.count()).toBe(0);
+
+  // the only owner cannot step down: the server's 409 answer shows in the row, the role stays
+  const patch = page.waitForResponse((r) => r.request().method() === 'PATCH');
+  await page.getByTestId('member-role-owner@example.com-viewer').click();
+  await page.getByTestId('member-confirm-owner@example.com').click();
+  const conflict = await patch;
+  expect(conflict.status()).toBe(409);
+  const conflictBody = (await conflict.json()) as { error: { message: string } };
+  const rowError = page.getByTestId('member-error-owner@example.com');
+  await rowError.waitFor();
+  expect(await rowError.innerText()).toBe(conflictBody.error.message);
+  expect(await page.getByTestId('member-role-owner@example.com-owner').getAttribute('aria-checked')).toBe('true');
+  await signedInAs(page, 'owner');
+
+  // removing asks once more, then the row is gone
+  await page.getByTestId(`member-remove-${email}`).click();
+  await page.getByTestId(`member-confirm-${email}`).click();
+  await page.getByTestId(`member-row-${email}`).waitFor({ state: 'detached' });
 
   await page.getByTestId('sign-out').click();
   await page.waitForURL((url) => url.pathname === '/sign-in');

@@ -46,3 +46,5 @@ function UntilSessionKnown({ children }: { children: ReactNode }) {
   if (status === 'loading') return <CenteredMessage busy testID="session-loading" />;
   return <>{children}</>;
 }
+
+export { ErrorScreen as ErrorBoundary } from '../components/ErrorScreen';

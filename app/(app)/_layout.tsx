@@ -41,3 +41,5 @@ export default function AppLayout() {
     </AppShell>
   );
 }
+
+export { ErrorScreen as ErrorBoundary } from '../../components/ErrorScreen';

@@ -18,9 +18,18 @@ import { WorkspaceSwitcher } from './WorkspaceSwitcher';
  * (usually with <Screen>), which gets all the remaining space.
  */
 export function AppShell({ children }: { children: ReactNode }) {
-  const { wideBreakpoint } = useTheme();
+  const { colors, wideBreakpoint } = useTheme();
   const { width } = useWindowDimensions();
-  return width >= wideBreakpoint ? <WideShell>{children}</WideShell> : <PhoneShell>{children}</PhoneShell>;
+  const wide = width >= wideBreakpoint;
+  // `children` (the group's <Slot />) keeps its place in the tree at both widths: were it
+  // remounted on a resize, Expo Router would fall back to the group's index route.
+  return (
+    <View style={{ flex: 1, flexDirection: wide ? 'row' : 'column', backgroundColor: colors.background }}>
+      {wide ? <SideNav /> : <PhoneHeader />}
+      <View style={{ flex: 1 }}>{children}</View>
+      {wide ? null : <BottomBar />}
+    </View>
+  );
 }
 
 function RoleBadge({ testID, align = 'flex-start' }: { testID?: string; align?: 'flex-start' | 'center' }) {
@@ -76,81 +85,79 @@ function Brand({ size = 28 }: { size?: number }) {
   );
 }
 
-function WideShell({ children }: { children: ReactNode }) {
+/** The side column from theme.wideBreakpoint up: brand, workspace, navigation, account. */
+function SideNav() {
   const { colors, radius, space } = useTheme();
   const pathname = usePathname();
   const { user } = useSession();
   return (
-    <View style={{ flex: 1, flexDirection: 'row', backgroundColor: colors.background }}>
-      <View
-        testID="side-nav"
-        role="navigation"
-        style={{
-          width: 252,
-          backgroundColor: colors.surface,
-          borderRightWidth: 1,
-          borderRightColor: colors.border,
-          padding: space.lg,
-          gap: space.lg,
-        }}
-      >
-        <View style={{ paddingHorizontal: space.xs, paddingTop: space.xs }}>
-          <Brand />
-        </View>
-        <WorkspaceSwitcher variant="block" />
-        <View style={{ gap: 2 }}>
-          {NAV_ITEMS.map(({ href, label, Icon, testID, matches }) => {
-            const active = matches(pathname);
-            return (
-              <Link key={href} href={href} asChild>
-                <LinkPressable
-                  testID={testID}
-                  accessibilityRole="link"
-                  aria-current={active ? 'page' : undefined}
-                  styleFor={({ hovered }) => ({
-                    flexDirection: 'row',
-                    alignItems: 'center',
-                    gap: space.md,
-                    paddingHorizontal: space.md,
-                    paddingVertical: space.sm + 2,
-                    borderRadius: radius.md,
-                    backgroundColor: active ? '#e3edf4' : hovered ? colors.surfaceAlt : 'transparent',
-                  })}
-                >
-                  <Icon color={active ? colors.primary : colors.textMuted} size={20} />
-                  <Text variant="bodyMedium" style={{ color: active ? colors.primary : colors.text }}>
-                    {label}
-                  </Text>
-                </LinkPressable>
-              </Link>
-            );
-          })}
-        </View>
-        <View style={{ flex: 1 }} />
-        <Link href="/about" asChild>
-          <Pressable
-            testID="nav-about"
-            accessibilityRole="link"
-            style={{ flexDirection: 'row', alignItems: 'center', gap: space.sm, paddingHorizontal: space.md }}
-          >
-            <InfoIcon color={colors.textMuted} size={18} />
-            <Text variant="small">About and cautions</Text>
-          </Pressable>
-        </Link>
-        <View style={{ borderTopWidth: 1, borderTopColor: colors.border, paddingTop: space.lg, gap: space.sm }}>
-          <View style={{ gap: 2 }}>
-            <Text variant="bodyMedium" numberOfLines={1}>
-              {user?.name}
-            </Text>
-            <Text variant="small" numberOfLines={1}>
-              {user?.email}
-            </Text>
-          </View>
-          <RoleBadge testID="current-role" />
-          <SignOutButton compact />
-        </View>
+    <View
+      testID="side-nav"
+      role="navigation"
+      style={{
+        width: 252,
+        backgroundColor: colors.surface,
+        borderRightWidth: 1,
+        borderRightColor: colors.border,
+        padding: space.lg,
+        gap: space.lg,
+      }}
+    >
+      <View style={{ paddingHorizontal: space.xs, paddingTop: space.xs }}>
+        <Brand />
       </View>
-      <View style={{ flex: 1 }}>{children}</View>
+      <WorkspaceSwitcher variant="block" />
+      <View style={{ gap: 2 }}>
+        {NAV_ITEMS.map(({ href, label, Icon, testID, matches }) => {
+          const active = matches(pathname);
+          return (
+            <Link key={href} href={href} asChild>
+              <LinkPressable
+                testID={testID}
+                accessibilityRole="link"
+                aria-current={active ? 'page' : undefined}
+                styleFor={({ hovered }) => ({
+                  flexDirection: 'row',
+                  alignItems: 'center',
+                  gap: space.md,
+                  paddingHorizontal: space.md,
+                  paddingVertical: space.sm + 2,
+                  borderRadius: radius.md,
+                  backgroundColor: active ? '#e3edf4' : hovered ? colors.surfaceAlt : 'transparent',
+                })}
+              >
+                <Icon color={active ? colors.primary : colors.textMuted} size={20} />
+                <Text variant="bodyMedium" style={{ color: active ? colors.primary : colors.text }}>
+                  {label}
+                </Text>
+              </LinkPressable>
+            </Link>
+          );
+        })}
+      </View>
+      <View style={{ flex: 1 }} />
+      <Link href="/about" asChild>
+        <Pressable
+          testID="nav-about"
+          accessibilityRole="link"
+          style={{ flexDirection: 'row', alignItems: 'center', gap: space.sm, paddingHorizontal: space.md }}
+        >
+          <InfoIcon color={colors.textMuted} size={18} />
+          <Text variant="small">About and cautions</Text>
+        </Pressable>
+      </Link>
+      <View style={{ borderTopWidth: 1, borderTopColor: colors.border, paddingTop: space.lg, gap: space.sm }}>
+        <View style={{ gap: 2 }}>
+          <Text variant="bodyMedium" numberOfLines={1}>
+            {user?.name}
+          </Text>
+          <Text variant="small" numberOfLines={1}>
+            {user?.email}
+          </Text>
+        </View>
+        <RoleBadge testID="current-role" />
+        <SignOutButton compact />
+      </View>
     </View>
   );
 }
@@ -161,16 +168,16 @@ function initialsOf(name: string | undefined): string {
   return letters.toUpperCase();
 }
 
-function PhoneShell({ children }: { children: ReactNode }) {
+/** The compact header of a phone: brand, workspace, role, and the account panel. */
+function PhoneHeader() {
   const { colors, radius, space } = useTheme();
   const insets = useSafeAreaInsets();
-  const pathname = usePathname();
   const { user } = useSession();
   const { workspace, role } = useCurrentWorkspace();
   const [accountOpen, setAccountOpen] = useState(false);
 
   return (
-    <View style={{ flex: 1, backgroundColor: colors.background }}>
+    <>
       <View
         testID="phone-header"
         style={{
@@ -208,39 +215,6 @@ function PhoneShell({ children }: { children: ReactNode }) {
             <Text variant="label">{initialsOf(user?.name)}</Text>
           </Pressable>
         </View>
-      </View>
-
-      <View style={{ flex: 1 }}>{children}</View>
-
-      <View
-        testID="bottom-nav"
-        role="navigation"
-        style={{
-          flexDirection: 'row',
-          backgroundColor: colors.surface,
-          borderTopWidth: 1,
-          borderTopColor: colors.border,
-          paddingBottom: insets.bottom,
-        }}
-      >
-        {NAV_ITEMS.map(({ href, label, Icon, testID, matches }) => {
-          const active = matches(pathname);
-          return (
-            <Link key={href} href={href} asChild>
-              <Pressable
-                testID={testID}
-                accessibilityRole="link"
-                aria-current={active ? 'page' : undefined}
-                style={{ flex: 1, height: 60, alignItems: 'center', justifyContent: 'center', gap: 3 }}
-              >
-                <Icon color={active ? colors.primary : colors.textMuted} size={22} />
-                <Text variant="label" style={{ fontSize: 12, color: active ? colors.primary : colors.textMuted }}>
-                  {label}
-                </Text>
-              </Pressable>
-            </Link>
-          );
-        })}
       </View>
 
       <Modal visible={accountOpen} transparent animationType="fade" onRequestClose={() => setAccountOpen(false)}>
@@ -286,6 +260,45 @@ function PhoneShell({ children }: { children: ReactNode }) {
           </Pressable>
         </Pressable>
       </Modal>
+    </>
+  );
+}
+
+/** The phone's bottom navigation bar. */
+function BottomBar() {
+  const { colors } = useTheme();
+  const insets = useSafeAreaInsets();
+  const pathname = usePathname();
+  return (
+    <View
+      testID="bottom-nav"
+      role="navigation"
+      style={{
+        flexDirection: 'row',
+        backgroundColor: colors.surface,
+        borderTopWidth: 1,
+        borderTopColor: colors.border,
+        paddingBottom: insets.bottom,
+      }}
+    >
+      {NAV_ITEMS.map(({ href, label, Icon, testID, matches }) => {
+        const active = matches(pathname);
+        return (
+          <Link key={href} href={href} asChild>
+            <Pressable
+              testID={testID}
+              accessibilityRole="link"
+              aria-current={active ? 'page' : undefined}
+              style={{ flex: 1, height: 60, alignItems: 'center', justifyContent: 'center', gap: 3 }}
+            >
+              <Icon color={active ? colors.primary : colors.textMuted} size={22} />
+              <Text variant="label" style={{ fontSize: 12, color: active ? colors.primary : colors.textMuted }}>
+                {label}
+              </Text>
+            </Pressable>
+          </Link>
+        );
+      })}
     </View>
   );
 }

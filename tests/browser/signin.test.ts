@@ -273,8 +273,15 @@ test('the cautions are reachable from the shell at both widths; an owner can edi
   expect(cautions).toMatch(/functional-safety standard/);
   await screenshot(page, 'about-390');
 
+  // crossing the wide breakpoint swaps the frame but keeps the page mounted (a remount
+  // would lose its state, and Expo Router would fall back to the overview)
+  await page.getByTestId('about-screen').evaluate((el) => el.setAttribute('data-kept', 'yes'));
   await page.setViewportSize(VIEWPORTS.wide);
   await page.getByTestId('side-nav').waitFor();
+  expect(await page.getByTestId('about-screen').getAttribute('data-kept')).toBe('yes');
+  expect(new URL(page.url()).pathname).toBe('/about');
+  expect(await visible(page, 'cautions')).toBe(true);
+  expect(await visible(page, 'bottom-nav')).toBe(false);
   await page.getByTestId('nav-overview').click();
   await page.waitForURL((url) => url.pathname === '/');
   await page.getByTestId('nav-about').click();

@@ -18,6 +18,7 @@ import { createApp } from '../server/app';
 import { loadConfig } from '../server/config';
 import { seedDemo, DEMO_PASSWORD } from '../server/seed';
 import { benchBundle } from './bundle';
+import { closeGracefully } from '../server/http/shutdown';
 
 const ROOT = path.resolve(__dirname, '..');
 
@@ -101,8 +102,7 @@ async function main() {
     rows.push(['discretize: loopback load, 8 connections, 8 s', `${load.requests.average.toFixed(0)} req/s`,
       `p97.5 ${load.latency.p97_5} ms`, `non-2xx ${load.non2xx}, errors ${load.errors}`]);
 
-    server.closeAllConnections();
-    await new Promise<void>((r) => server.close(() => r()));
+    await closeGracefully(server);
     close();
 
     const b = await benchBundle();

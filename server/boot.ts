@@ -6,6 +6,7 @@ import { loadConfig, resolveDataDir, type Config } from './config';
 import { connectionFromUrl, createDb, migrateLatest, type Db, type DbConnection } from './db/knex';
 import { ensureMariadbInstalled, startPrivateMariadb, type PrivateDb } from './db/private-mariadb';
 import { createApp } from './app';
+import { closeGracefully } from './http/shutdown';
 import { seedDemo } from './seed';
 import { ensureWebBuild, ROOT } from './web-build';
 
@@ -28,7 +29,7 @@ function sessionSecret(config: Config, dataDir: string): string {
 }
 
 /** Everything `npm start` does: database (private or external), migrations, seed, web build, listen. */
-export async function boot(env = process.env, log: (l: string) => void = console.log): Promise<Running> {
+export async function boot(env: Record<string, string | undefined> = process.env, log: (l: string) => void = console.log): Promise<Running> {
   const config = loadConfig(env);
   const dataDir = resolveDataDir(config, ROOT);
   let privateDb: PrivateDb | null = null;
@@ -68,10 +69,7 @@ export async function boot(env = process.env, log: (l: string) => void = console
       stop: () =>
         (stopping ??= (async () => {
           close();
-          await new Promise<void>((resolve) => {
-            server.close(() => resolve());
-            server.closeAllConnections();
-          });
+          await closeGracefully(server);
           await db.destroy();
           await privateDb?.stop();
         })()),

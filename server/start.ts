@@ -2,6 +2,11 @@
 import { boot } from './boot';
 import { ConfigError } from './config';
 
+// a stray rejected promise (e.g. a database hiccup in a library) is logged, never fatal
+process.on('unhandledRejection', (reason) => {
+  console.error('unhandled rejection:', reason);
+});
+
 async function main() {
   const running = await boot();
   console.log(`\nSamplewright is up: ${running.url}\n(Ctrl-C stops the server and its database)`);

@@ -33,8 +33,70 @@ export interface SessionOptions {
 
 export const SESSION_COOKIE = 'sw.sid';
 
+/**
+ * The Knex session store, with two changes: a failing get, set, touch or destroy reports to
+ * its callback only, instead of also leaving an unhandled rejection (which would end the
+ * process), and a session is touched
+ * in the database at most once a minute per process (every request would otherwise write).
+ */
+class SessionStore extends ConnectSessionKnexStore {
+  private lastTouch = new Map<string, number>();
+
+  override async touch(sid: string, session: session.SessionData, callback?: (err?: unknown) => void): Promise<void> {
+    const now = Date.now();
+    const last = this.lastTouch.get(sid);
+    if (last !== undefined && now - last < TOUCH_EVERY_MS) {
+      callback?.();
+      return;
+    }
+    if (this.lastTouch.size > 10_000) this.lastTouch.clear();
+    try {
+      await super.touch(sid, session);
+      this.lastTouch.set(sid, now);
+      callback?.();
+    } catch (err) {
+      callback?.(err);
+    }
+  }
+
+  override async get(sid: string, callback: (err: unknown, session?: session.SessionData | null) => void): Promise<session.SessionData | null> {
+    try {
+      const s = await super.get(sid, () => {});
+      callback(null, s);
+      return s;
+    } catch (err) {
+      callback(err);
+      return null;
+    }
+  }
+
+  override async set(sid: string, sess: session.SessionData, callback?: (err?: unknown) => void): Promise<void> {
+    try {
+      await super.set(sid, sess);
+      this.lastTouch.set(sid, Date.now());
+      callback?.();
+    } catch (err) {
+      callback?.(err);
+    }
+  }
+
+  override async destroy(sid: string, callback?: (err?: unknown) => void): Promise<number> {
+    this.lastTouch.delete(sid);
+    try {
+      const n = await super.destroy(sid);
+      callback?.();
+      return n;
+    } catch (err) {
+      callback?.(err);
+      return 0;
+    }
+  }
+}
+
+const TOUCH_EVERY_MS = 60_000;
+
 export function createSessionMiddleware(opts: SessionOptions): { middleware: RequestHandler; store: ConnectSessionKnexStore } {
-  const store = new ConnectSessionKnexStore({
+  const store = new SessionStore({
     knex: opts.db,
     tableName: 'auth_sessions',
     createTable: false,

@@ -7,6 +7,7 @@ import { createApp } from '../../server/app';
 import { seedDemo, DEMO_PASSWORD } from '../../server/seed';
 import { ROOT } from '../../server/web-build';
 import { createTestDb, type TestDb } from './test-db';
+import { closeGracefully } from '../../server/http/shutdown';
 
 export const TEST_SECRET = 'test-secret-test-secret-test-secret';
 
@@ -50,10 +51,7 @@ export async function startTestServer(): Promise<{ baseUrl: string; db: TestDb['
     baseUrl: `http://127.0.0.1:${port}`,
     db: t.db,
     async stop() {
-      await new Promise<void>((r) => {
-        server.close(() => r());
-        server.closeAllConnections();
-      });
+      await closeGracefully(server);
       await t.cleanup();
     },
   };

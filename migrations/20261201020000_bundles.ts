@@ -9,6 +9,8 @@ export async function up(knex: Knex): Promise<void> {
     t.string('file_name', 80).notNullable();
     t.integer('size_bytes').unsigned().notNullable();
     t.specificType('zip', 'LONGBLOB').notNullable();
+    // the same files as text, for the preview without unpacking the zip
+    t.specificType('files', 'LONGTEXT').notNullable();
     t.string('generator_version', 32).notNullable();
     t.integer('created_by').unsigned().nullable().references('users.id').onDelete('SET NULL');
     t.timestamp('created_at', { precision: 3 }).notNullable().defaultTo(knex.fn.now(3));

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { compensatorSchema } from './compensator';
+import { implementationSettingsSchema } from './implementation';
 import { MAX_SAMPLE_RATE_HZ, methodNameSchema } from './discretize';
 
 /**
@@ -74,7 +75,7 @@ export const designSpecSchema = z
     delaySamples: z.union([z.literal(0), z.literal(1)], { error: 'computation delay is 0 or 1 sample' }).optional(),
     bandHz: positive('band').optional().describe('Hz, in (0, fs/2]; default a quarter of Nyquist'),
     tolerances: tolerancesSchema.default({ ...DEFAULT_TOLERANCES }),
-    implementation: z.unknown().optional().describe('fixed-point choices (schemas/implementation.ts)'),
+    implementation: implementationSettingsSchema.optional().describe('fixed-point (or float32) implementation: word length, scaling, limits, C prefix, structure'),
   })
   .superRefine((spec, ctx) => {
     const nyquist = spec.sampleRateHz / 2;

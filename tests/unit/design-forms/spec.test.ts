@@ -25,8 +25,9 @@ describe('editor → saved spec', () => {
     expect(withPlant.errors['plant.num']).toMatch(/improper/);
   });
   it('keeps what the editor does not show (implementation) and reopens the same spec', () => {
-    const { spec } = buildSpec({ ...lead(), plantOn: true, plant: { form: 'tf', num: '8', den: '1, 5, 0' }, delaySamples: 1 }, { implementation: { wordLength: 16 } });
-    expect(spec!.implementation).toEqual({ wordLength: 16 });
+    const impl = { wordLength: 16 as const, inputScale: 1, outputScale: 1, outputLimits: { min: -1000, max: 1000 }, prefix: 'tilt' };
+    const { spec } = buildSpec({ ...lead(), plantOn: true, plant: { form: 'tf', num: '8', den: '1, 5, 0' }, delaySamples: 1 }, { implementation: impl });
+    expect(spec!.implementation).toEqual(impl);
     const again = buildSpec(editorStateFromSpec(spec!), { implementation: spec!.implementation });
     expect(again.spec).toEqual(spec);
   });

@@ -18,6 +18,7 @@ import { createApp } from '../server/app';
 import { loadConfig } from '../server/config';
 import { seedDemo, DEMO_PASSWORD } from '../server/seed';
 import { benchBundle } from './bundle';
+import { summary } from './stats';
 import { closeGracefully } from '../server/http/shutdown';
 
 const ROOT = path.resolve(__dirname, '..');
@@ -39,17 +40,6 @@ function freePort(): Promise<number> {
       s.close(() => resolve(typeof a === 'object' && a ? a.port : 0));
     });
   });
-}
-
-export function quantile(sorted: number[], q: number): number {
-  if (!sorted.length) return NaN;
-  const i = Math.min(sorted.length - 1, Math.max(0, Math.ceil(q * sorted.length) - 1));
-  return sorted[i]!;
-}
-
-export function summary(xs: number[]) {
-  const s = [...xs].sort((a, b) => a - b);
-  return { median: quantile(s, 0.5), p95: quantile(s, 0.95), n: s.length };
 }
 
 async function main() {
@@ -106,7 +96,7 @@ async function main() {
     close();
 
     const b = await benchBundle();
-    if (b) rows.push(['bundle generation (render + zip)', b.median.toFixed(3), b.p95.toFixed(3), `ms, n=${b.n}`]);
+    rows.push(['bundle generation (render + zip)', b.median.toFixed(3), b.p95.toFixed(3), `ms, n=${b.n}`]);
   } finally {
     await db.destroy();
     await pdb.stop();

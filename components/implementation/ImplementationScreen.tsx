@@ -50,7 +50,7 @@ export function ImplementationRouteScreen() {
   const params = useLocalSearchParams<{ designId: string; version?: string }>();
   const designId = asInt(params.designId) ?? -1;
   const version = asInt(params.version);
-  return <ImplementationScreen key={`${designId}-${version ?? 'latest'}`} designId={designId} versionNumber={version} />;
+  return <ImplementationScreen designId={designId} versionNumber={version} />;
 }
 
 interface Props {

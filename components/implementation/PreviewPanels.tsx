@@ -1,3 +1,4 @@
+import { useState } from 'react';
 import { View } from 'react-native';
 import type { Structure, WordLength } from '../../schemas/implementation';
 import type { ImplementationAnalysisWire, ImplementationWarning } from '../../schemas/implementation-api';
@@ -7,6 +8,7 @@ import { useLayoutWidth } from '../plots/useLayoutWidth';
 import { useTheme } from '../theme';
 import { Button } from '../ui/Button';
 import { Card } from '../ui/Card';
+import { Segmented } from '../ui/Segmented';
 import { Text } from '../ui/Text';
 import {
   choiceLabel,
@@ -15,6 +17,7 @@ import {
   formatOfCoefficient,
   improvementFactor,
   pctText,
+  stabilityText,
   STRUCTURE_SHORT,
   wordLengthLabel,
   zText,
@@ -35,14 +38,14 @@ export function PanelTitle({ title, hint }: { title: string; hint?: string }) {
 // ---------------------------------------------------------------- coefficients
 
 const COEF_COLUMNS: FigureColumn[] = [
-  { key: 'section', title: 'Sect.', width: 52 },
-  { key: 'name', title: 'Coef.', width: 58 },
-  { key: 'format', title: 'Format', width: 84 },
-  { key: 'exact', title: 'Exact', width: 150, numeric: true },
-  { key: 'integer', title: 'Integer', width: 116, numeric: true },
-  { key: 'quantized', title: 'Quantized', width: 150, numeric: true },
-  { key: 'error', title: 'Error', width: 112, numeric: true },
-  { key: 'bits', title: 'Sig. bits', width: 76, numeric: true },
+  { key: 'section', title: 'Sect.', width: 50 },
+  { key: 'name', title: 'Coef.', width: 54 },
+  { key: 'format', title: 'Format', width: 70 },
+  { key: 'exact', title: 'Exact', width: 112, numeric: true },
+  { key: 'integer', title: 'Integer', width: 92, numeric: true },
+  { key: 'quantized', title: 'Quantized', width: 112, numeric: true },
+  { key: 'error', title: 'Error', width: 84, numeric: true },
+  { key: 'bits', title: 'Bits', width: 50, numeric: true },
 ];
 
 /** Exact, quantized integer, error and significant bits of every coefficient, section by section. */
@@ -57,9 +60,9 @@ export function CoefficientsPanel({ analysis }: { analysis: Analysis }) {
       section: String(c.section),
       name: coefficientLabel(c.name),
       format: formatOfCoefficient(analysis.sections, c),
-      exact: fmt(c.exact, 10),
+      exact: fmt(c.exact, 8),
       integer: c.integer === null ? '—' : String(c.integer),
-      quantized: fmt(c.quantized, 10),
+      quantized: fmt(c.quantized, 8),
       error: c.error === 0 ? '0' : fmt(c.error, 3),
       bits: String(c.significantBits),
     },
@@ -69,7 +72,7 @@ export function CoefficientsPanel({ analysis }: { analysis: Analysis }) {
     <Card testID="impl-coefficients">
       <PanelTitle
         title="Coefficients"
-        hint={`${choiceLabel(analysis)}, ${analysis.sections.length} section${analysis.sections.length === 1 ? '' : 's'}; scaling folded in (input scale ÷ output scale = ${fmt(analysis.gainFold, 6)}). Rows in red keep fewer than 4 significant bits.`}
+        hint={`${choiceLabel(analysis)}, ${analysis.sections.length} section${analysis.sections.length === 1 ? '' : 's'}; scaling folded in (input scale ÷ output scale = ${fmt(analysis.gainFold, 6)}). Bits: significant bits of the stored integer; rows in red keep fewer than 4.`}
       />
       <FigureTable columns={columns} rows={rows} />
       <Text variant="small">Formats per section: {sections}</Text>
@@ -80,11 +83,16 @@ export function CoefficientsPanel({ analysis }: { analysis: Analysis }) {
 // ---------------------------------------------------------------- roots
 
 const ROOT_COLUMNS: FigureColumn[] = [
-  { key: 'kind', title: 'Root', width: 74 },
-  { key: 'ideal', title: 'Ideal z', width: 200, numeric: true },
-  { key: 'quantized', title: 'Quantized z', width: 200, numeric: true },
-  { key: 'driftZ', title: '|Δz|', width: 96, numeric: true },
-  { key: 'driftPct', title: 'Drift of s', width: 96, numeric: true },
+  { key: 'kind', title: 'Root', width: 70 },
+  { key: 'ideal', title: 'Ideal z', width: 170, numeric: true },
+  { key: 'quantized', title: 'Quantized z', width: 170, numeric: true },
+  { key: 'driftZ', title: '|Δz|', width: 80, numeric: true },
+  { key: 'driftPct', title: 'Drift of s', width: 92, numeric: true },
+];
+
+const FRAME_OPTIONS: { value: 'whole' | 'close'; label: string }[] = [
+  { value: 'whole', label: 'Unit circle' },
+  { value: 'close', label: 'Close to the roots' },
 ];
 
 /** Ideal and quantized poles and zeros on one z-plane map, with their drift in numbers. */
@@ -102,6 +110,9 @@ export function RootsPanel({ analysis }: { analysis: Analysis }) {
       zeros: analysis.zeros.map((z) => z.quantized).filter(lostOrKept),
     },
   ];
+  // roots crowd near z = 1 at high sample rates: frame them closely from the start there
+  const crowded = analysis.poles.some((p) => Math.hypot(p.ideal.re - 1, p.ideal.im) < 0.05);
+  const [frame, setFrame] = useState<'whole' | 'close'>(crowded ? 'close' : 'whole');
   const tol = analysis.tolerances.poleDriftPct;
   const rows: FigureRow[] = [
     ...analysis.poles.map((p, i) => ({ p, kind: 'pole', i })),
@@ -120,14 +131,22 @@ export function RootsPanel({ analysis }: { analysis: Analysis }) {
   const m = analysis.metrics;
   return (
     <Card testID="impl-roots">
-      <PanelTitle title="Quantized poles and zeros" hint="× poles, ○ zeros. Drift of s: |ln z_q − ln z| as a percentage of |ln z|, the equivalent s-plane root." />
+      <PanelTitle title="Quantized poles and zeros" hint="× poles, ○ zeros; where the two coincide only the quantized marker shows. Drift of s: |ln z_q − ln z| as a percentage of |ln z|, the equivalent s-plane root." />
+      <Segmented<'whole' | 'close'>
+        testID="impl-pz-frame"
+        accessibilityLabel="Map framing"
+        options={FRAME_OPTIONS}
+        value={frame}
+        onChange={setFrame}
+        compact
+      />
       <View onLayout={onLayout}>
-        <PoleZeroMap width={width} plane="z" series={series} testID="impl-pz-map" />
+        <PoleZeroMap width={width} plane="z" series={series} zoom={frame === 'close'} testID="impl-pz-map" />
       </View>
       <FigureTable columns={ROOT_COLUMNS} rows={rows} />
       <Text variant="small" testID="impl-metrics" style={{ color: colors.text }}>
         DC gain {m.dcGainIdeal === null ? '∞' : fmt(m.dcGainIdeal, 6)} → {m.dcGainQuantized === null ? '∞' : fmt(m.dcGainQuantized, 6)} (drift {pctText(m.dcGainDriftPct, 'n/a')}); largest response error {dbText(m.responseErrorDb)};{' '}
-        {m.stableQuantized ? 'stable after quantization' : m.stableIdeal ? 'UNSTABLE after quantization' : 'not stable (nor is the ideal design)'}.
+        {stabilityText(analysis.poles)}.
       </Text>
     </Card>
   );
@@ -136,11 +155,11 @@ export function RootsPanel({ analysis }: { analysis: Analysis }) {
 // ---------------------------------------------------------------- advice
 
 const ADVICE_COLUMNS: FigureColumn[] = [
-  { key: 'choice', title: 'Word length and structure', width: 230 },
-  { key: 'pole', title: 'Pole drift', width: 96, numeric: true },
-  { key: 'dc', title: 'DC-gain drift', width: 110, numeric: true },
-  { key: 'resp', title: 'Resp. error', width: 96, numeric: true },
-  { key: 'ok', title: 'Tolerances', width: 96 },
+  { key: 'choice', title: 'Word length and structure', width: 206 },
+  { key: 'pole', title: 'Pole drift', width: 94, numeric: true },
+  { key: 'dc', title: 'DC-gain drift', width: 106, numeric: true },
+  { key: 'resp', title: 'Resp. error', width: 104, numeric: true },
+  { key: 'ok', title: 'Tolerances', width: 84 },
 ];
 
 interface AdviceProps {
@@ -161,7 +180,7 @@ export function AdvicePanel({ analysis, onUse }: AdviceProps) {
     tone: rec && c.wordLength === rec.wordLength && c.structure === rec.structure ? 'good' : 'plain',
     testID: `impl-candidate-${c.wordLength}-${c.structure}`,
     cells: {
-      choice: `${choiceLabel(c)}${isCurrent(c) ? ' (these settings)' : ''}`,
+      choice: `${choiceLabel(c)}${isCurrent(c) ? ' (now)' : ''}`,
       pole: pctText(c.metrics.poleDriftPct),
       dc: pctText(c.metrics.dcGainDriftPct, 'n/a'),
       resp: dbText(c.metrics.responseErrorDb),
@@ -194,7 +213,7 @@ export function AdvicePanel({ analysis, onUse }: AdviceProps) {
           ) : null}
         </View>
       ) : analysis.wordLength !== 'float32' ? (
-        <Text variant="small">The offset form gains nothing worth its cost here ({STRUCTURE_SHORT['direct-form-1']} is as accurate within a factor of 4).</Text>
+        <Text variant="small">The offset form would not improve these figures 4-fold or more here; {STRUCTURE_SHORT['direct-form-1']} is enough.</Text>
       ) : null}
     </Card>
   );

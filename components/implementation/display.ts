@@ -23,7 +23,26 @@ export function wordLengthLabel(w: WordLength): string {
 
 /** "16-bit direct form I", "float32 transposed direct form II". */
 export function choiceLabel(c: { wordLength: WordLength; structure: Structure }): string {
-  return `${wordLengthLabel(c.wordLength)} ${STRUCTURE_SHORT[c.structure]}`;
+  // float32 has one structure only: the word length says it all
+  return c.wordLength === 'float32' ? 'float32' : `${wordLengthLabel(c.wordLength)} ${STRUCTURE_SHORT[c.structure]}`;
+}
+
+/** Marginal: a pole on the unit circle (e.g. an integrator at z = 1), none outside. */
+const ON_CIRCLE = 1e-9;
+
+/**
+ * Stability of the ideal and the quantized poles in words. A pole at z = 1 (an integrator)
+ * is "on the unit circle", not "unstable": that is how such a controller is designed.
+ */
+export function stabilityText(poles: { ideal: { re: number; im: number }; quantized: { re: number | null; im: number | null } }[]): string {
+  const mag = (r: { re: number | null; im: number | null }) => (r.re === null || r.im === null ? NaN : Math.hypot(r.re, r.im));
+  const state = (ms: number[]) =>
+    ms.some((m) => !(m <= 1 + ON_CIRCLE)) ? 'outside' : ms.some((m) => m > 1 - ON_CIRCLE) ? 'on' : 'inside';
+  const ideal = state(poles.map((p) => mag(p.ideal)));
+  const quant = state(poles.map((p) => mag(p.quantized)));
+  if (quant === 'inside') return ideal === 'inside' ? 'stable after quantization' : 'every quantized pole inside the unit circle';
+  if (quant === 'on') return ideal === 'on' ? 'a pole stays on the unit circle (an integrator), as designed' : 'a pole moved onto the unit circle after quantization';
+  return ideal === 'outside' ? 'a pole lies outside the unit circle, as in the ideal design' : 'UNSTABLE after quantization: a pole moved outside the unit circle';
 }
 
 /**

@@ -7,6 +7,7 @@ import {
   improvementFactor,
   pctText,
   sizeText,
+  stabilityText,
   zText,
 } from '../../../components/implementation/display';
 
@@ -60,4 +61,15 @@ test('sizes and tab labels', () => {
   expect(sizeText(12_345)).toBe('12.3 kB');
   expect(fileTabLabel('include/tilt.h')).toBe('tilt.h');
   expect(fileTabLabel('Makefile')).toBe('Makefile');
+});
+
+describe('stabilityText', () => {
+  const p = (ideal: [number, number], q: [number | null, number | null]) => ({ ideal: { re: ideal[0], im: ideal[1] }, quantized: { re: q[0], im: q[1] } });
+  test('inside stays inside', () => expect(stabilityText([p([0.9, 0], [0.9001, 0])])).toBe('stable after quantization'));
+  test('an integrator at z = 1 is on the circle as designed, not unstable', () =>
+    expect(stabilityText([p([0.88, 0], [0.88, 0]), p([1, 0], [1, 0])])).toBe('a pole stays on the unit circle (an integrator), as designed'));
+  test('a pole pushed outside is called unstable', () =>
+    expect(stabilityText([p([0.99999, 0], [1.00002, 0])])).toMatch(/^UNSTABLE after quantization/));
+  test('a pole pushed onto the circle', () => expect(stabilityText([p([0.99999, 0], [1, 0])])).toBe('a pole moved onto the unit circle after quantization'));
+  test('a lost root counts as outside', () => expect(stabilityText([p([0.5, 0], [null, null])])).toMatch(/^UNSTABLE/));
 });

@@ -38,7 +38,7 @@ export function PanelTitle({ title, hint }: { title: string; hint?: string }) {
 // ---------------------------------------------------------------- coefficients
 
 const COEF_COLUMNS: FigureColumn[] = [
-  { key: 'section', title: 'Sect.', width: 50 },
+  { key: 'section', title: 'Sec.', width: 50 },
   { key: 'name', title: 'Coef.', width: 54 },
   { key: 'format', title: 'Format', width: 70 },
   { key: 'exact', title: 'Exact', width: 112, numeric: true },

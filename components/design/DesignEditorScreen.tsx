@@ -212,6 +212,20 @@ function Editor({ designId, initial, readOnly, canWrite: writable, versionNumber
           <Cautions />
         </Card>
       )}
+      {d && (
+        <Card testID="implement-card">
+          <Text variant="title">Fixed point and C code</Text>
+          <Text variant="small" tone="textMuted">
+            Word length, scaling and output limits for version {versionNumber ?? d.latest.number}, the quantized coefficients, and the code bundle with its test vectors.
+          </Text>
+          <Button
+            testID="design-implement"
+            kind="secondary"
+            label="Open the implementation"
+            onPress={() => router.push({ pathname: '/implement/[designId]', params: { designId: String(d.design.id), version: String(versionNumber ?? d.latest.number) } })}
+          />
+        </Card>
+      )}
       {d && <VersionList designId={d.design.id} versions={d.versions} current={versionNumber ?? d.latest.number} />}
     </View>
   );

@@ -87,6 +87,11 @@ describe.each([
     expect(await page.getByTestId('sample-rate').inputValue()).toBe('500');
     await screenshot(page, `editor-${label}-version1`);
 
+    // the implementation of the version shown is one step away
+    await page.getByTestId('design-implement').click();
+    await page.waitForURL(/\/implement\/\d+\?version=1/);
+    await page.getByTestId('impl-screen').waitFor();
+
     // the list shows the design
     await page.goto(`${server.baseUrl}/designs`);
     await page.getByText(name).first().waitFor();

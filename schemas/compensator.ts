@@ -16,22 +16,35 @@ import { z } from 'zod';
 /** Highest order accepted for a compensator or a plant (degree of the denominator). */
 export const MAX_ORDER = 10;
 
+/** Largest accepted |root| (rad/s) and the accepted range of nonzero gains and coefficients. */
+export const MAX_ROOT_MAGNITUDE = 1e12;
+export const MAX_COEFFICIENT_MAGNITUDE = 1e150;
+export const MIN_COEFFICIENT_MAGNITUDE = 1e-150;
+
 /** Two complex roots count as conjugates when they agree to this relative tolerance. */
 const PAIR_TOLERANCE = 1e-9;
 
-const finite = (what: string) =>
-  z.number({ error: `${what} must be a finite number` }).refine(Number.isFinite, `${what} must be a finite number`);
+const finite = (what: string) => z.number({ error: `${what} must be a finite number` });
+/** A root coordinate in rad/s, |x| ≤ 1e12. */
+const rootPart = (what: string) =>
+  finite(what).refine((v) => Math.abs(v) <= MAX_ROOT_MAGNITUDE, `${what} must lie within ±${MAX_ROOT_MAGNITUDE} rad/s`);
+/** A gain or coefficient: 0 or 1e-150 ≤ |x| ≤ 1e150 (keeps every product inside double range). */
+const coefficient = (what: string) =>
+  finite(what).refine(
+    (v) => v === 0 || (Math.abs(v) >= MIN_COEFFICIENT_MAGNITUDE && Math.abs(v) <= MAX_COEFFICIENT_MAGNITUDE),
+    `${what} must be 0 or between ${MIN_COEFFICIENT_MAGNITUDE} and ${MAX_COEFFICIENT_MAGNITUDE} in magnitude`,
+  );
 
 export const complexSchema = z
   .strictObject({
-    re: finite('re').describe('real part, rad/s for s-plane roots'),
-    im: finite('im').describe('imaginary part, rad/s for s-plane roots'),
+    re: rootPart('re').describe('real part, rad/s for s-plane roots'),
+    im: rootPart('im').describe('imaginary part, rad/s for s-plane roots'),
   })
   .describe('a complex number {re, im}');
 
 /** A root: a real number, or {re, im}; complex roots must come with their conjugate. */
 export const rootSchema = z
-  .union([finite('a root').describe('a real root, rad/s'), complexSchema], {
+  .union([rootPart('a root').describe('a real root, rad/s'), complexSchema], {
     error: 'a root must be a finite number or {"re": number, "im": number}',
   })
   .describe('a real root as a number, or a complex root as {re, im} (rad/s)');
@@ -78,7 +91,7 @@ export const zpkInputSchema = z
     form: z.literal('zpk'),
     zeros: rootList('zeros'),
     poles: rootList('poles'),
-    gain: finite('gain')
+    gain: coefficient('gain')
       .refine((k) => k !== 0, 'gain must not be 0')
       .describe('root-locus gain K: the ratio of the leading coefficients (not a DC gain)'),
   })
@@ -99,7 +112,7 @@ export const zpkInputSchema = z
 
 const coefficientList = (what: string) =>
   z
-    .array(finite('a coefficient'))
+    .array(coefficient('a coefficient'))
     .min(1, `${what} needs at least one coefficient`)
     .max(MAX_ORDER + 1, `at most ${MAX_ORDER + 1} coefficients (order ≤ ${MAX_ORDER})`)
     .describe(`${what} coefficients in descending powers of s, e.g. [1, 5, 0] for s² + 5s`);

@@ -93,6 +93,7 @@ const THETA13 = 5.371920351148152;
 export function expm(aIn: Mat): Mat {
   const n = aIn.length;
   const nrm = norm1(aIn);
+  if (!Number.isFinite(nrm)) throw new RangeError('expm of a non-finite matrix');
   const s = nrm > THETA13 ? Math.max(0, Math.ceil(Math.log2(nrm / THETA13))) : 0;
   const f = Math.pow(2, -s);
   const a = aIn.map((r) => r.map((v) => v * f));

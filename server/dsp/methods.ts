@@ -22,6 +22,11 @@ export interface DiscretizeOptions {
 export interface DiscreteResult {
   zpk: Zpk;
   tf: DiscreteTf;
+  /**
+   * H(z = 1) where the method knows it better than the zpk product (ZOH: H(0), by
+   * step invariance); null when infinite. Absent: use the zpk.
+   */
+  dcGain?: number | null;
 }
 
 const realPart = (c: Complex) => c.re;
@@ -156,7 +161,21 @@ export function zohDiscretize(cont: Zpk, periodSec: number): DiscreteResult {
     });
     if (best >= 0) zeros[best] = cx(1);
   }
-  return { zpk: { zeros, poles, gain: trimmed[0] }, tf: { num, den } };
+  return { zpk: { zeros, poles, gain: trimmed[0] }, tf: { num, den }, dcGain: zohDcGain(cont) };
+}
+
+/**
+ * H_d(1) of the ZOH model: equal to H(0) by step invariance (a held constant input is
+ * sampled exactly), evaluated from the continuous roots in product form. The state-space
+ * form D + C(I − Φ)⁻¹Γ cancels when |H(0)| ≪ |D|, and the product over the discrete
+ * zeros carries their eigenvalue error, so neither is used for the reported value.
+ * Null with a pole at s = 0 (z = 1), 0 with a zero there.
+ */
+function zohDcGain(cont: Zpk): number | null {
+  if (cont.poles.some((p) => p.re === 0 && p.im === 0)) return null;
+  if (cont.zeros.some((z) => z.re === 0 && z.im === 0)) return 0;
+  const v = evalZpk(cont, cx(0)).re;
+  return Number.isFinite(v) ? v : null;
 }
 
 /**

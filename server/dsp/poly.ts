@@ -141,8 +141,14 @@ export function polyRoots(pIn: readonly number[]): Complex[] {
   if (n === 2) return [...quadraticRoots(p[0], p[1], p[2]), ...zeroRoots];
   // Scale x = σ·y with σ = |p_n/p_0|^(1/n) (geometric mean of |roots|) so the companion
   // matrix has entries of order one.
-  const sigma = Math.pow(Math.abs(p[n] / p[0]), 1 / n);
-  const q = p.map((c, i) => (c / p[0]) / Math.pow(sigma, i));
+  // (in logarithms, so coefficients of very different sizes do not overflow)
+  const logSigma = (Math.log(Math.abs(p[n])) - Math.log(Math.abs(p[0]))) / n;
+  const sigma = Math.exp(logSigma);
+  const lead = Math.log(Math.abs(p[0]));
+  const q = p.map((c, i) => (c === 0 ? 0 : Math.sign(c) * Math.sign(p[0]) * Math.exp(Math.log(Math.abs(c)) - lead - i * logSigma)));
+  if (!Number.isFinite(sigma) || sigma === 0 || !q.every(Number.isFinite)) {
+    throw new RangeError('polynomial coefficients span too wide a range to factor');
+  }
   const m = Matrix.zeros(n, n);
   for (let j = 0; j < n; j++) m.set(0, j, -q[j + 1]);
   for (let i = 1; i < n; i++) m.set(i, i - 1, 1);
@@ -164,6 +170,8 @@ export function eigenvalues(rows: number[][]): Complex[] {
 }
 
 function eigenvaluesOf(m: Matrix): Complex[] {
+  // The Hessenberg–QR iteration has no iteration cap: never hand it a non-finite entry.
+  for (let i = 0; i < m.rows; i++) for (let j = 0; j < m.columns; j++) if (!Number.isFinite(m.get(i, j))) throw new RangeError('non-finite matrix entry');
   balance(m);
   const evd = new EigenvalueDecomposition(m, { assumeSymmetric: false });
   const im = evd.imaginaryEigenvalues;
@@ -226,16 +234,16 @@ function balance(m: Matrix): void {
       const s = c + r;
       let f = 1;
       let g = r / 2;
-      while (c < g) {
+      for (let k = 0; c < g && k < 1100; k++) {
         f *= 2;
         c *= 4;
       }
       g = r * 2;
-      while (c >= g) {
+      for (let k = 0; c >= g && k < 1100; k++) {
         f /= 2;
         c /= 4;
       }
-      if ((c + r) / f < 0.95 * s) {
+      if (Number.isFinite(f) && f > 0 && (c + r) / f < 0.95 * s) {
         noconv = true;
         for (let j = 0; j < n; j++) m.set(i, j, m.get(i, j) / f);
         for (let j = 0; j < n; j++) m.set(j, i, m.get(j, i) * f);

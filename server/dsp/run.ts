@@ -9,7 +9,7 @@ import {
   type StepResponse,
   type RootInfo,
 } from '../../schemas/discretize';
-import type { CompensatorInput } from '../../schemas/compensator';
+import { MAX_ROOT_MAGNITUDE, type CompensatorInput } from '../../schemas/compensator';
 import { abs, cx } from './complex';
 import { DspInputError } from './errors';
 import {
@@ -45,7 +45,14 @@ import type { Complex, MethodName, Zpk } from './types';
  */
 export function runDiscretize(req: DiscretizeRequest): DiscretizeResponse {
   try {
-    return run(req);
+    const res = run(req);
+    const bad = firstNonFinite(res);
+    if (bad !== null) {
+      throw new DspInputError('this design overflows double precision; rescale it', [
+        { path: '', message: `the answer would hold a non-finite number (at ${bad}); rescale the gains or the time unit` },
+      ]);
+    }
+    return res;
   } catch (e) {
     if (e instanceof DspInputError) throw e;
     // Guard of the contract "never 5xx": an unforeseen numerical failure is reported as
@@ -56,6 +63,30 @@ export function runDiscretize(req: DiscretizeRequest): DiscretizeResponse {
   }
 }
 
+/** Path of the first NaN/±∞ in a JSON-like value, or null (a JSON answer cannot carry them). */
+function firstNonFinite(v: unknown, path = 'answer'): string | null {
+  if (typeof v === 'number') return Number.isFinite(v) ? null : path;
+  if (Array.isArray(v)) {
+    for (let i = 0; i < v.length; i++) {
+      const x = v[i];
+      if (typeof x === 'number') {
+        if (!Number.isFinite(x)) return `${path}.${i}`;
+      } else if (x !== null && typeof x === 'object') {
+        const r = firstNonFinite(x, `${path}.${i}`);
+        if (r) return r;
+      }
+    }
+    return null;
+  }
+  if (v !== null && typeof v === 'object') {
+    for (const [k, x] of Object.entries(v)) {
+      const r = firstNonFinite(x, `${path}.${k}`);
+      if (r) return r;
+    }
+  }
+  return null;
+}
+
 /** Continuous model: zpk plus descending polynomials (the entered ones for tf form). */
 interface Continuous {
   zpk: Zpk;
@@ -63,8 +94,22 @@ interface Continuous {
   den: number[];
 }
 
-function continuousModel(input: CompensatorInput): Continuous {
-  const zpk = inputToZpk(input);
+function continuousModel(input: CompensatorInput, field: 'compensator' | 'plant'): Continuous {
+  let zpk: Zpk;
+  try {
+    zpk = inputToZpk(input);
+  } catch {
+    throw new DspInputError(`the ${field} polynomials cannot be factored`, [
+      { path: `${field}.den`, message: 'the coefficients span too wide a range; rescale the polynomial (e.g. time in ms, frequency in krad/s)' },
+    ]);
+  }
+  for (const [key, roots] of [['num', zpk.zeros], ['den', zpk.poles]] as const) {
+    if (roots.some((r) => !(abs(r) <= MAX_ROOT_MAGNITUDE))) {
+      throw new DspInputError(`a ${field} root lies beyond ${MAX_ROOT_MAGNITUDE} rad/s`, [
+        { path: `${field}.${key}`, message: `every root must lie within ${MAX_ROOT_MAGNITUDE} rad/s; rescale the polynomial` },
+      ]);
+    }
+  }
   if (input.form === 'tf') {
     const lead = input.den[0];
     return { zpk, num: trimLeading(input.num).map((v) => v / lead), den: input.den.map((v) => v / lead) };
@@ -80,7 +125,7 @@ function run(req: DiscretizeRequest): DiscretizeResponse {
   const nyqHz = fs / 2;
   const nyqRad = Math.PI * fs;
   const warnings: DspWarning[] = [];
-  const comp = continuousModel(req.compensator);
+  const comp = continuousModel(req.compensator, 'compensator');
 
   // tf-form roots are known only now: the Nyquist rule of DESIGN.md again.
   if (req.compensator.form === 'tf') {
@@ -140,7 +185,7 @@ function run(req: DiscretizeRequest): DiscretizeResponse {
   let stepSamples = 0;
   let fullSamples = 0;
   if (req.plant) {
-    plantC = continuousModel(req.plant);
+    plantC = continuousModel(req.plant, 'plant');
     plantD = zohDiscretize(plantC.zpk, T);
     plantOut = {
       zeros: plantC.zpk.zeros,
@@ -207,7 +252,7 @@ function run(req: DiscretizeRequest): DiscretizeResponse {
       poles: d.zpk.poles,
       zeroInfo: d.zpk.zeros.map((z, i) => rootInfo(z, zToS(z, T), zeroOrigin[i])),
       poleInfo: d.zpk.poles.map((p, i) => rootInfo(p, zToS(p, T), poleOrigin[i])),
-      dcGain: discreteDcGain(d.zpk),
+      dcGain: d.dcGain !== undefined ? d.dcGain : discreteDcGain(d.zpk),
       stable: stab.stable,
       marginal: stab.marginal,
       prewarpRadPerSec: usesW0 ? w0 : null,

@@ -10,6 +10,9 @@ import { closeGracefully } from './http/shutdown';
 import { seedDemo } from './seed';
 import { ensureWebBuild, ROOT } from './web-build';
 
+/** The demo workspace is seeded when asked for, and never in production. */
+export const shouldSeedDemo = (config: Config) => config.SEED_DEMO && config.NODE_ENV !== 'production';
+
 export interface Running {
   config: Config;
   db: Db;
@@ -47,7 +50,7 @@ export async function boot(env: Record<string, string | undefined> = process.env
   const db = createDb(connection);
   try {
     await migrateLatest(db);
-    if (config.SEED_DEMO && config.NODE_ENV !== 'production') {
+    if (shouldSeedDemo(config)) {
       await seedDemo(db);
       log('Demo workspace ready (sign in as owner@example.com / samplewright-demo)');
     }

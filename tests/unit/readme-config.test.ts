@@ -1,6 +1,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { describeConfig, loadConfig, ConfigError } from '../../server/config';
+import { shouldSeedDemo } from '../../server/boot';
 
 describe('configuration', () => {
   it('the README table lists every key with its real default', () => {
@@ -28,5 +29,11 @@ describe('configuration', () => {
     expect(c.PORT).toBe(8080);
     expect(c.DB_PORT).toBe(3407);
     expect(c.SEED_DEMO).toBe(true);
+  });
+
+  it('never seeds the demo in production, even when SEED_DEMO is true', () => {
+    expect(shouldSeedDemo(loadConfig({ NODE_ENV: 'production', SEED_DEMO: 'true' }))).toBe(false);
+    expect(shouldSeedDemo(loadConfig({ NODE_ENV: 'development' }))).toBe(true);
+    expect(shouldSeedDemo(loadConfig({ SEED_DEMO: 'false' }))).toBe(false);
   });
 });

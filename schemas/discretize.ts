@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { compensatorSchema, complexSchema, rootIm, rootRe, type CompensatorInput } from './compensator';
+import { compensatorSchema, rootIm, rootRe, type CompensatorInput } from './compensator';
 
 /**
  * The compute API `POST /api/v1/discretize` (DESIGN.md "The compute API"): request and
@@ -130,6 +130,8 @@ export type DiscretizeRequestBody = z.input<typeof discretizeRequestSchema>;
 
 // ---------------------------------------------------------------- response
 
+/** A complex value of the answer (no input bounds: z-plane roots of unstable plants can be huge). */
+const complexSchema = z.object({ re: z.number(), im: z.number() }).describe('a complex number {re, im}');
 const num = (d: string) => z.number().describe(d);
 const nullableNum = (d: string) => z.number().nullable().describe(d);
 

@@ -104,7 +104,10 @@ export function discreteDcGain(h: Zpk): number | null {
 export function logGrid(lo: number, hi: number, n: number): number[] {
   const a = Math.log(lo);
   const b = Math.log(hi);
-  const out = Array.from({ length: n }, (_, i) => Math.exp(a + ((b - a) * i) / (n - 1)));
+  const out = new Array<number>(n);
+  const step = (b - a) / (n - 1);
+  for (let i = 0; i < n; i++) out[i] = Math.exp(a + step * i);
+  out[0] = lo;
   out[n - 1] = hi;
   return out;
 }
@@ -133,24 +136,34 @@ export function evaluator(h: Zpk): Evaluator {
  * construction (it jumps only where a root sits on the axis or circle).
  */
 export function responseAt(h: Zpk | Evaluator, x: Complex): { db: number; deg: number } {
-  const e = 'k' in h ? h : evaluator(h);
+  evalInto('k' in h ? h : evaluator(h), x.re, x.im);
+  return { db: outDb, deg: outDeg };
+}
+
+// Results of evalInto (module scratch, so the grid loops allocate nothing per point).
+let outDb = 0;
+let outDeg = 0;
+
+function evalInto(e: Evaluator, xr: number, xi: number): void {
   let mag2 = e.k * e.k;
   let ph = e.k < 0 ? Math.PI : 0;
-  for (let i = 0; i < e.zr.length; i++) {
-    const dr = x.re - e.zr[i];
-    const di = x.im - e.zi[i];
+  const { zr, zi, pr, pi } = e;
+  for (let i = 0; i < zr.length; i++) {
+    const dr = xr - zr[i];
+    const di = xi - zi[i];
     mag2 *= dr * dr + di * di;
     ph += Math.atan2(di, dr);
   }
-  for (let i = 0; i < e.pr.length; i++) {
-    const dr = x.re - e.pr[i];
-    const di = x.im - e.pi[i];
+  for (let i = 0; i < pr.length; i++) {
+    const dr = xr - pr[i];
+    const di = xi - pi[i];
     mag2 /= dr * dr + di * di;
     ph -= Math.atan2(di, dr);
   }
   let db = (10 / Math.LN10) * Math.log(mag2);
-  if (!Number.isFinite(db) || mag2 === 0) db = logSumDb(e, x);
-  return { db: Number.isFinite(db) ? Math.max(MIN_DB, db) : db > 0 ? -MIN_DB : MIN_DB, deg: ph * DEG };
+  if (!Number.isFinite(db) || mag2 === 0) db = logSumDb(e, { re: xr, im: xi });
+  outDb = Number.isFinite(db) ? Math.max(MIN_DB, db) : db > 0 ? -MIN_DB : MIN_DB;
+  outDeg = ph * DEG;
 }
 
 /** 20·log10|H(x)| as a sum of logs (no overflow); the slow path of responseAt. */
@@ -168,38 +181,33 @@ export interface Response {
 
 export function continuousResponse(hIn: Zpk, omegas: number[]): Response {
   const h = evaluator(hIn);
-  const magnitudeDb: number[] = [];
-  const phaseDeg: number[] = [];
-  for (const w of omegas) {
-    const v = responseAt(h, cx(0, w));
-    magnitudeDb.push(v.db);
-    phaseDeg.push(v.deg);
+  const n = omegas.length;
+  const magnitudeDb = new Array<number>(n);
+  const phaseDeg = new Array<number>(n);
+  for (let i = 0; i < n; i++) {
+    evalInto(h, 0, omegas[i]);
+    magnitudeDb[i] = outDb;
+    phaseDeg[i] = outDeg;
   }
   return { magnitudeDb, phaseDeg };
-}
-
-let circleCache: { omegas: number[]; T: number; pts: Complex[] } | null = null;
-/** e^{jω_i T}, cached for the grid of the current request (the five methods share it). */
-function circle(omegas: number[], T: number, i: number): Complex {
-  if (!circleCache || circleCache.omegas !== omegas || circleCache.T !== T) {
-    circleCache = { omegas, T, pts: omegas.map((w) => ({ re: Math.cos(w * T), im: Math.sin(w * T) })) };
-  }
-  return circleCache.pts[i];
 }
 
 /** Discrete response on the grid, its phase shifted by a multiple of 360° to start beside `reference`. */
 export function discreteResponse(hIn: Zpk, omegas: number[], periodSec: number, reference?: Response): Response & { shiftDeg: number } {
   const h = evaluator(hIn);
-  const magnitudeDb: number[] = [];
-  const phaseDeg: number[] = [];
-  for (let i = 0; i < omegas.length; i++) {
-    const v = responseAt(h, circle(omegas, periodSec, i));
-    magnitudeDb.push(v.db);
-    phaseDeg.push(v.deg);
+  const n = omegas.length;
+  const magnitudeDb = new Array<number>(n);
+  const phaseDeg = new Array<number>(n);
+  for (let i = 0; i < n; i++) {
+    const wt = omegas[i] * periodSec;
+    evalInto(h, Math.cos(wt), Math.sin(wt));
+    magnitudeDb[i] = outDb;
+    phaseDeg[i] = outDeg;
   }
   let shiftDeg = 0;
-  if (reference && phaseDeg.length) shiftDeg = 360 * Math.round((reference.phaseDeg[0] - phaseDeg[0]) / 360);
-  return { magnitudeDb, phaseDeg: phaseDeg.map((p) => p + shiftDeg), shiftDeg };
+  if (reference && n) shiftDeg = 360 * Math.round((reference.phaseDeg[0] - phaseDeg[0]) / 360);
+  if (shiftDeg !== 0) for (let i = 0; i < n; i++) phaseDeg[i] += shiftDeg;
+  return { magnitudeDb, phaseDeg, shiftDeg };
 }
 
 // ------------------------------------------------------------------ margins

@@ -64,25 +64,33 @@ export function runDiscretize(req: DiscretizeRequest): DiscretizeResponse {
 }
 
 /** Path of the first NaN/±∞ in a JSON-like value, or null (a JSON answer cannot carry them). */
-function firstNonFinite(v: unknown, path = 'answer'): string | null {
-  if (typeof v === 'number') return Number.isFinite(v) ? null : path;
+function firstNonFinite(v: unknown): string | null {
+  return hasNonFinite(v) ? pathOfNonFinite(v, 'answer') : null;
+}
+
+/** Fast scan (no paths built): true when a NaN or ±∞ sits anywhere in v. */
+function hasNonFinite(v: unknown): boolean {
+  if (typeof v === 'number') return !Number.isFinite(v);
+  if (v === null || typeof v !== 'object') return false;
   if (Array.isArray(v)) {
     for (let i = 0; i < v.length; i++) {
       const x = v[i];
       if (typeof x === 'number') {
-        if (!Number.isFinite(x)) return `${path}.${i}`;
-      } else if (x !== null && typeof x === 'object') {
-        const r = firstNonFinite(x, `${path}.${i}`);
-        if (r) return r;
-      }
+        if (x - x !== 0) return true; // NaN and ±∞ give NaN
+      } else if (x !== null && typeof x === 'object' && hasNonFinite(x)) return true;
     }
-    return null;
+    return false;
   }
-  if (v !== null && typeof v === 'object') {
-    for (const [k, x] of Object.entries(v)) {
-      const r = firstNonFinite(x, `${path}.${k}`);
-      if (r) return r;
-    }
+  for (const k in v as Record<string, unknown>) if (hasNonFinite((v as Record<string, unknown>)[k])) return true;
+  return false;
+}
+
+function pathOfNonFinite(v: unknown, path: string): string | null {
+  if (typeof v === 'number') return Number.isFinite(v) ? null : path;
+  if (v === null || typeof v !== 'object') return null;
+  for (const [k, x] of Object.entries(v)) {
+    const r = pathOfNonFinite(x, `${path}.${k}`);
+    if (r) return r;
   }
   return null;
 }
@@ -212,9 +220,10 @@ function run(req: DiscretizeRequest): DiscretizeResponse {
     const h = (horizon.steps * T) / nc;
     const y = stable ? continuousStep(clZpk, h, nc) : [];
     const full = stepMetrics(y.map((_, k) => k * h), y, stable ? continuousDcGain(clZpk) : null);
-    // Window shown and simulated for the sampled loops: 3× the continuous settling time.
+    // Window shown and simulated for the sampled loops: 2× the continuous settling time
+    // (longer when a sampled loop has not settled in it).
     const settle = full.settlingTimeSec;
-    stepSamples = settle !== null ? Math.max(20, Math.min(horizon.steps, Math.ceil((3 * settle) / T))) : horizon.steps;
+    stepSamples = settle !== null ? Math.max(20, Math.min(horizon.steps, Math.ceil((2 * settle) / T))) : horizon.steps;
     fullSamples = horizon.steps;
     const shown = Math.min(y.length, Math.floor((stepSamples * T) / h + 1e-9) + 1);
     continuousLoop = {
@@ -381,7 +390,7 @@ function discreteLoop(
   const stab = discreteStability(cl.poles);
   const origin = pairRoots(cl.poles, contPoles, T, false);
   const le = evaluator(loopZpk);
-  const crossings = findCrossings((w) => lnMagPhase(le, Math.cos(w * T), Math.sin(w * T)), Math.min(wLo, Math.PI / T / 1e4), Math.PI / T);
+  const crossings = findCrossings((w) => lnMagPhase(le, Math.cos(w * T), Math.sin(w * T)), Math.min(wLo, Math.PI / T / 1e4), Math.PI / T, 200);
   const clZpk: Zpk = { zeros: loopZpk.zeros, poles: cl.poles, gain: loopZpk.gain / cl.lead };
   const dc = stab.stable ? discreteDcGain(clZpk) : null;
   let step = stepOut(stab.stable ? discreteStep(clZpk, steps) : [], T, dc);

@@ -69,9 +69,10 @@ describe('properties of the methods on random stable designs', () => {
         for (const m of ['tustin', 'matched', 'zoh'] as const) {
           const d = discretizeZpk(h, m, fs);
           // from the discrete structure: Tustin and matched map the roots analytically; ZOH's
-          // zeros are eigenvalues, so its product is checked to 1e-6 (the API reports H(0)
-          // for ZOH by step invariance)
-          const tol = m === 'zoh' ? 1e-6 : 1e-9;
+          // zeros are eigenvalues (a repeated zero pair moves by ~√ε), so its product is
+          // checked to 1e-4 — the API reports H(0) for ZOH by step invariance, and ZOH's
+          // coefficients are checked to 1e-12 against mpmath in fixtures.test.ts
+          const tol = m === 'zoh' ? 1e-4 : 1e-9;
           if (!(Math.abs(discreteDcGain(d.zpk)! - dc) <= tol * Math.abs(dc))) return false;
         }
         return true;

@@ -1,4 +1,4 @@
-import type { LoopResult, Margins, RootInfo, StepResponse } from '../../schemas/discretize';
+import type { Margins, RootInfo, StepResponse } from '../../schemas/discretize';
 import { abs, cx, log1p, sub } from './complex';
 import { evalZpk } from './lti';
 import { polyAdd, polyRoots, trimLeading } from './poly';
@@ -420,4 +420,3 @@ export function discreteStep(cl: Zpk, steps: number): number[] {
   return iterateStep(ss.a, ss.b, ss.c, ss.d, steps);
 }
 
-export type { LoopResult };

@@ -11,8 +11,9 @@ import type { Complex, DiscreteTf, MethodName, Zpk } from './types';
  * (rad/s), sample rate in Hz. Output: zpk in z, K·Π(z − zᵢ)/Π(z − pᵢ) with zeros at z = ∞
  * omitted, and the difference-equation form (num/den of z⁰, z⁻¹ …, equal lengths).
  *
- * Example: discretizeZpk({zeros: [−3], poles: [−18], gain: 25}, 'tustin', 250)
- *   → zeros [0.98807…], poles [0.93023…], gain 24.10…; num [24.1…, −23.8…], den [1, −0.930…].
+ * Example: discretizeZpk({zeros: [{re: −3, im: 0}], poles: [{re: −18, im: 0}], gain: 25}, 'tustin', 250)
+ *   → zeros [0.988072 = 497/503], poles [0.930502 = 482/518], gain 24.2761 = 25·503/518;
+ *     num [24.2761, −23.9865], den [1, −0.930502].
  */
 export interface DiscretizeOptions {
   /** ω₀ in rad/s: required by `prewarp`, and by `matched` when the DC gain is 0 or infinite. */

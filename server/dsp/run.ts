@@ -7,7 +7,6 @@ import {
   type LoopResult,
   type MethodResult,
   type StepResponse,
-  type RootInfo,
 } from '../../schemas/discretize';
 import { MAX_ROOT_MAGNITUDE, type CompensatorInput } from '../../schemas/compensator';
 import { abs, cx } from './complex';

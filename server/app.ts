@@ -71,9 +71,9 @@ export function createApp(opts: CreateAppOptions): { app: Express; close: () => 
 
   registry.add({ method: 'get', path: '/api/v1/openapi.json', tag: 'meta', auth: 'none',
     summary: 'This document: every route of the API with its request and answer schemas' });
-  const openapi = registry.document(API_VERSION);
+  const openapi = JSON.stringify(registry.document(API_VERSION));
   api.get('/openapi.json', (_req, res) => {
-    res.json(openapi);
+    res.type('application/json').send(openapi);
   });
   registry.add({ method: 'get', path: '/api/v1/health', tag: 'meta', auth: 'none', summary: 'Liveness and database check' });
   api.get('/health', async (_req, res) => {

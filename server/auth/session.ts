@@ -132,9 +132,19 @@ export function createPassport(db: Db): passport.PassportStatic {
       })().catch(done);
     }),
   );
-  p.serializeUser((user, done) => done(null, (user as User).id));
-  p.deserializeUser((id: unknown, done) => {
-    findUserById(db, Number(id))
+  // the session keeps the user's id, e-mail and name: no query per request to know who it is
+  // (roles are read per request by requireRole, so a removed membership takes effect at once)
+  p.serializeUser((user, done) => {
+    const u = user as User;
+    done(null, { id: u.id, email: u.email, name: u.name });
+  });
+  p.deserializeUser((stored: unknown, done) => {
+    if (stored && typeof stored === 'object' && 'id' in stored && 'email' in stored && 'name' in stored) {
+      const u = stored as User;
+      return done(null, { id: Number(u.id), email: String(u.email), name: String(u.name) });
+    }
+    // a session written by an older server held only the id
+    findUserById(db, Number(stored))
       .then((u) => done(null, u ?? false))
       .catch(done);
   });

@@ -44,13 +44,19 @@ export function polyval(p: readonly number[], x: Complex): Complex {
 
 /** Horner value and derivative at a complex point. */
 function polyvalDeriv(p: readonly number[], x: Complex): [Complex, Complex] {
-  let v = cx(0);
-  let d = cx(0);
+  let vr = 0;
+  let vi = 0;
+  let dr = 0;
+  let di = 0;
   for (const c of p) {
-    d = add(mul(d, x), v);
-    v = add(mul(v, x), cx(c));
+    const ndr = dr * x.re - di * x.im + vr;
+    di = dr * x.im + di * x.re + vi;
+    dr = ndr;
+    const nvr = vr * x.re - vi * x.im + c;
+    vi = vr * x.im + vi * x.re;
+    vr = nvr;
   }
-  return [v, d];
+  return [{ re: vr, im: vi }, { re: dr, im: di }];
 }
 
 /**

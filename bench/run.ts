@@ -20,6 +20,7 @@ import { seedDemo, DEMO_PASSWORD } from '../server/seed';
 import { benchBundle } from './bundle';
 import { summary } from './stats';
 import { closeGracefully } from '../server/http/shutdown';
+import { freePort } from '../server/http/ports';
 
 const ROOT = path.resolve(__dirname, '..');
 
@@ -32,15 +33,6 @@ const REQUEST = {
   responsePoints: 400,
 };
 
-function freePort(): Promise<number> {
-  return new Promise((resolve) => {
-    const s = net.createServer();
-    s.listen(0, '127.0.0.1', () => {
-      const a = s.address();
-      s.close(() => resolve(typeof a === 'object' && a ? a.port : 0));
-    });
-  });
-}
 
 async function main() {
   ensureMariadbInstalled();

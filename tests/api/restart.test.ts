@@ -3,21 +3,12 @@
  * (server and mariadbd), start again and find every row.
  */
 import fs from 'node:fs';
-import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { boot } from '../../server/boot';
 import { DEMO_PASSWORD } from '../../server/seed';
+import { freePort } from '../../server/http/ports';
 
-function freePort(): Promise<number> {
-  return new Promise((resolve) => {
-    const s = net.createServer();
-    s.listen(0, '127.0.0.1', () => {
-      const a = s.address();
-      s.close(() => resolve(typeof a === 'object' && a ? a.port : 0));
-    });
-  });
-}
 
 async function login(url: string) {
   const res = await fetch(`${url}/api/v1/auth/login`, {

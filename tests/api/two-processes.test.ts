@@ -4,21 +4,12 @@
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import path from 'node:path';
-import net from 'node:net';
 import { createTestDb, type TestDb } from '../helpers/test-db';
 import { seedDemo, DEMO_PASSWORD } from '../../server/seed';
+import { freePort } from '../../server/http/ports';
 
 const ROOT = path.resolve(__dirname, '..', '..');
 
-function freePort(): Promise<number> {
-  return new Promise((resolve) => {
-    const s = net.createServer();
-    s.listen(0, '127.0.0.1', () => {
-      const a = s.address();
-      s.close(() => resolve(typeof a === 'object' && a ? a.port : 0));
-    });
-  });
-}
 
 async function startProcess(t: TestDb, port: number): Promise<ChildProcess> {
   const c = t.connection;

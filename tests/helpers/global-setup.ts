@@ -1,22 +1,11 @@
 /** Starts one private MariaDB for the whole test run (own port and data directory). */
 import fs from 'node:fs';
-import net from 'node:net';
 import path from 'node:path';
 import { ensureMariadbInstalled, startPrivateMariadb, type PrivateDb } from '../../server/db/private-mariadb';
+import { freePort } from '../../server/http/ports';
 
 const ROOT = path.resolve(__dirname, '..', '..');
 
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const s = net.createServer();
-    s.once('error', reject);
-    s.listen(0, '127.0.0.1', () => {
-      const addr = s.address();
-      const port = typeof addr === 'object' && addr ? addr.port : 0;
-      s.close(() => resolve(port));
-    });
-  });
-}
 
 declare global {
   // eslint-disable-next-line no-var

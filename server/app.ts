@@ -32,6 +32,9 @@ export function createApp(opts: CreateAppOptions): { app: Express; close: () => 
   const { db, config } = opts;
   const app = express();
   app.disable('x-powered-by');
+  // API answers are never cached (Cache-Control: no-store), so hashing every body for an
+  // ETag is wasted work; static files get their own ETags from express.static
+  app.set('etag', false);
   if (config.TRUST_PROXY) app.set('trust proxy', config.TRUST_PROXY);
 
   app.use(

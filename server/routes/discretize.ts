@@ -22,7 +22,11 @@ export function discretizeRoutes(ctx: AppContext): Router {
     try {
       out = runDiscretize(body);
     } catch (e) {
-      if (e instanceof DspInputError) throw badRequest(e.message, e.issues);
+      if (e instanceof DspInputError) {
+        // a refusal naming no field may hide a numerical failure of ours: keep a trace of it
+        if (e.issues.some((i) => i.path === '')) ctx.log('discretize: request refused as unanalysable', e.issues);
+        throw badRequest(e.message, e.issues);
+      }
       throw e;
     }
     // the compute time alone, for clients and for `npm run bench`

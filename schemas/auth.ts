@@ -26,3 +26,10 @@ export const sessionInfoSchema = z.object({
   csrfToken: z.string().describe('send back as the X-CSRF-Token header on every non-GET request made with the cookie'),
 });
 export type SessionInfo = z.infer<typeof sessionInfoSchema>;
+
+/** POST /api/v1/auth/password: the signed-in user replaces their password (e.g. the one shown once). */
+export const changePasswordRequestSchema = z.object({
+  currentPassword: z.string().min(1, 'Enter your current password').max(200),
+  newPassword: z.string().min(12, 'Use at least 12 characters').max(200, 'Use at most 200 characters'),
+});
+export type ChangePasswordRequest = z.infer<typeof changePasswordRequestSchema>;

@@ -3,6 +3,7 @@ import { useTheme } from '../theme';
 import { Card } from '../ui/Card';
 import { Screen } from '../ui/Screen';
 import { Text } from '../ui/Text';
+import { PasswordCard } from '../account/PasswordCard';
 
 /** The full cautions of DESIGN.md, reachable from every signed-in screen. */
 export const CAUTIONS = [
@@ -14,7 +15,7 @@ export const CAUTIONS = [
 export function AboutScreen() {
   const { space } = useTheme();
   return (
-    <Screen testID="about-screen" title="About and cautions" subtitle="Samplewright 0.1">
+    <Screen testID="about-screen" title="Account and cautions" subtitle="Samplewright 0.1">
       <Card tone="notice" testID="cautions">
         <Text variant="title">Before a controller leaves the bench</Text>
         <View style={{ gap: space.sm }}>
@@ -26,6 +27,7 @@ export function AboutScreen() {
           ))}
         </View>
       </Card>
+      <PasswordCard />
       <Card>
         <Text variant="title">What Samplewright does</Text>
         <Text>

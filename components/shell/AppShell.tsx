@@ -143,7 +143,7 @@ function SideNav() {
           style={{ flexDirection: 'row', alignItems: 'center', gap: space.sm, paddingHorizontal: space.md }}
         >
           <InfoIcon color={colors.textMuted} size={18} />
-          <Text variant="small">About and cautions</Text>
+          <Text variant="small">Account and cautions</Text>
         </Pressable>
       </Link>
       <View style={{ borderTopWidth: 1, borderTopColor: colors.border, paddingTop: space.lg, gap: space.sm }}>
@@ -253,7 +253,7 @@ function PhoneHeader() {
             >
               <InfoIcon color={colors.primary} size={18} />
               <Text variant="bodyMedium" tone="primary">
-                About and cautions
+                Account and cautions
               </Text>
             </Pressable>
             <SignOutButton />

@@ -71,7 +71,7 @@ export function CautionLine() {
         Generated controllers drive real actuators: verify on the target with current and travel limits in place.
         Not certified for safety-related use.{' '}
         <Link href="/about" style={{ color: colors.primary, textDecorationLine: 'underline' }}>
-          About and cautions
+          Account and cautions
         </Link>
       </Text>
     </View>

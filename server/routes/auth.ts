@@ -1,8 +1,9 @@
 import { Router, type Request } from 'express';
 import { rateLimit } from 'express-rate-limit';
-import { loginRequestSchema, sessionInfoSchema, type SessionInfo } from '../../schemas/auth';
+import { changePasswordRequestSchema, loginRequestSchema, sessionInfoSchema, type SessionInfo } from '../../schemas/auth';
 import type { AppContext } from '../context';
-import { membershipsOf } from '../data/users';
+import { audit, findUserByEmail, membershipsOf } from '../data/users';
+import { hashPassword, verifyPassword } from '../auth/passwords';
 import { parseOr400, unauthorized, HttpError } from '../http/errors';
 import { KnexRateLimitStore } from '../auth/rate-limit-store';
 
@@ -61,6 +62,25 @@ export function authRoutes(ctx: AppContext): Router {
   r.get('/me', async (req, res) => {
     if (!req.user) throw unauthorized('Not signed in');
     res.json(await sessionInfo(req));
+  });
+
+  registry.add({ method: 'post', path: '/api/v1/auth/password', tag: 'auth', status: 204, body: changePasswordRequestSchema,
+    summary: 'Change the signed-in user\'s password (the current one is asked again); other sessions of the user end' });
+  r.post('/password', loginLimiter, csrf.csrfSynchronisedProtection, async (req, res) => {
+    if (!req.user) throw unauthorized('Not signed in');
+    const body = parseOr400(changePasswordRequestSchema, req.body);
+    const row = await findUserByEmail(db, req.user.email);
+    if (!row || !(await verifyPassword(body.currentPassword, row.password_hash))) {
+      throw new HttpError(400, 'The current password is wrong', [{ path: 'currentPassword', message: 'This is not your current password' }]);
+    }
+    await db('users').where({ id: row.id }).update({ password_hash: await hashPassword(body.newPassword) });
+    // end every other session of this user (a shared or leaked password stops working everywhere)
+    await db('auth_sessions')
+      .whereRaw("JSON_VALUE(sess, '$.passport.user.id') = ?", [row.id])
+      .andWhereNot({ sid: req.sessionID })
+      .delete();
+    await audit(db, { userId: row.id, action: 'user.password', subject: row.email });
+    res.status(204).end();
   });
 
   return r;

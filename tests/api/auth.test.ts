@@ -1,6 +1,7 @@
 import request from 'supertest';
 import { makeTestApp, signIn } from '../helpers/test-server';
 import { DEMO_PASSWORD, DEMO_USERS } from '../../server/seed';
+import { hashPassword } from '../../server/auth/passwords';
 
 let t: Awaited<ReturnType<typeof makeTestApp>>;
 beforeAll(async () => {
@@ -93,6 +94,30 @@ describe('sign-in', () => {
   it('answers unknown API routes with 404 JSON', async () => {
     const res = await request(t.app).get('/api/v1/no-such-thing').expect(404);
     expect(res.body.error.message).toMatch(/No such API route/);
+  });
+});
+
+describe('password change', () => {
+  it('asks for the current password, then the new one signs in, the old one does not, and other sessions end', async () => {
+    const [uid] = await t.db('users').insert({ email: 'pw@example.com', name: 'P', password_hash: await hashPassword('first-password-123') });
+    const wsId = (await t.db('workspaces').first()).id;
+    await t.db('memberships').insert({ workspace_id: wsId, user_id: uid, role: 'viewer' });
+    const other = await signIn(t.app, 'pw@example.com', 'first-password-123');
+    const { agent, csrf } = await signIn(t.app, 'pw@example.com', 'first-password-123');
+    const wrong = await agent.post('/api/v1/auth/password').set('X-CSRF-Token', csrf)
+      .send({ currentPassword: 'nope', newPassword: 'second-password-456' }).expect(400);
+    expect(wrong.body.error.issues[0].path).toBe('currentPassword');
+    const short = await agent.post('/api/v1/auth/password').set('X-CSRF-Token', csrf)
+      .send({ currentPassword: 'first-password-123', newPassword: 'short' }).expect(400);
+    expect(short.body.error.issues[0].path).toBe('newPassword');
+    await agent.post('/api/v1/auth/password').send({ currentPassword: 'first-password-123', newPassword: 'second-password-456' }).expect(403);
+    await agent.post('/api/v1/auth/password').set('X-CSRF-Token', csrf)
+      .send({ currentPassword: 'first-password-123', newPassword: 'second-password-456' }).expect(204);
+    await agent.get('/api/v1/auth/me').expect(200); // this session goes on
+    await other.agent.get('/api/v1/auth/me').expect(401); // the other one ended
+    await request(t.app).post('/api/v1/auth/login').send({ email: 'pw@example.com', password: 'first-password-123' }).expect(401);
+    await signIn(t.app, 'pw@example.com', 'second-password-456');
+    await t.db('rate_limit_hits').delete();
   });
 });
 

@@ -292,3 +292,30 @@ test('the cautions are reachable from the shell at both widths; an owner can edi
   expect(errors).toEqual([]);
   await page.close();
 });
+
+test('a member replaces their password from the account screen; the new one signs in', async () => {
+  const { page, errors } = await browser.newPage(VIEWPORTS.phone);
+  await page.goto(`${server.baseUrl}/sign-in`);
+  await fillSignIn(page, 'viewer@example.com', DEMO_PASSWORD);
+  await signedInAs(page, 'viewer');
+  await page.goto(`${server.baseUrl}/about`);
+  await page.getByTestId('password-current').fill('not-my-password');
+  await page.getByTestId('password-new').fill('short');
+  await page.getByTestId('password-submit').click();
+  // the shared schema refuses the short one before any request
+  expect(await page.getByTestId('password-new-error').innerText()).toMatch(/12 characters/);
+  await page.getByTestId('password-new').fill('a-much-longer-password');
+  await page.getByTestId('password-submit').click();
+  await page.getByTestId('password-current-error').waitFor();
+  expect(await page.getByTestId('password-current-error').innerText()).toMatch(/not your current password/);
+  await page.getByTestId('password-current').fill(DEMO_PASSWORD);
+  await page.getByTestId('password-submit').click();
+  await page.getByTestId('password-done').waitFor();
+  await page.getByTestId('account-menu').click();
+  await page.getByTestId('sign-out').click();
+  await page.waitForURL((url) => url.pathname === '/sign-in');
+  await fillSignIn(page, 'viewer@example.com', 'a-much-longer-password');
+  await signedInAs(page, 'viewer');
+  expect(errors).toEqual([]);
+  await page.close();
+});

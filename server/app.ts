@@ -1,5 +1,6 @@
 import express, { type Express } from 'express';
 import helmet from 'helmet';
+import cors from 'cors';
 import fs from 'node:fs';
 import path from 'node:path';
 import type { Config } from './config';
@@ -60,6 +61,10 @@ export function createApp(opts: CreateAppOptions): { app: Express; close: () => 
   const ctx: AppContext = { db, config, registry, passport, csrf, log };
 
   const api = express.Router();
+  if (config.DEV_WEB_ORIGIN && config.NODE_ENV === 'development') {
+    // `npm run dev`: the Metro dev server on its own port calls this API with the cookie
+    api.use(cors({ origin: config.DEV_WEB_ORIGIN, credentials: true, allowedHeaders: ['Content-Type', 'X-CSRF-Token'] }));
+  }
   api.use(express.json({ limit: `${config.BODY_LIMIT_KB}kb`, strict: true, type: ['application/json', 'application/*+json'] }));
   api.use(sessionMw, passport.session());
   api.use((req, res, next) => {

@@ -31,6 +31,8 @@ export const configSchema = z.object({
     .describe('largest accepted JSON body in KiB; larger answers 413'),
   SEED_DEMO: bool.default(true).describe('seed the demo workspace (never when NODE_ENV=production)'),
   BUILD_WEB: bool.default(true).describe('build the web export at start when it is missing or older than the sources'),
+  DEV_WEB_ORIGIN: z.string().url().optional()
+    .describe('development only: origin of the Metro dev server allowed to call the API with cookies (set by `npm run dev`)'),
   WEB_DIR: z.string().min(1).default('dist').describe('folder of the exported web build served by Express'),
 });
 

@@ -121,13 +121,21 @@ export interface Evaluator {
   pi: Float64Array;
 }
 export function evaluator(h: Zpk): Evaluator {
-  return {
-    k: h.gain,
-    zr: Float64Array.from(h.zeros, (z) => z.re),
-    zi: Float64Array.from(h.zeros, (z) => z.im),
-    pr: Float64Array.from(h.poles, (p) => p.re),
-    pi: Float64Array.from(h.poles, (p) => p.im),
-  };
+  const nz = h.zeros.length;
+  const np = h.poles.length;
+  const zr = new Float64Array(nz);
+  const zi = new Float64Array(nz);
+  const pr = new Float64Array(np);
+  const pi = new Float64Array(np);
+  for (let i = 0; i < nz; i++) {
+    zr[i] = h.zeros[i].re;
+    zi[i] = h.zeros[i].im;
+  }
+  for (let i = 0; i < np; i++) {
+    pr[i] = h.poles[i].re;
+    pi[i] = h.poles[i].im;
+  }
+  return { k: h.gain, zr, zi, pr, pi };
 }
 
 /**
@@ -192,15 +200,34 @@ export function continuousResponse(hIn: Zpk, omegas: number[]): Response {
   return { magnitudeDb, phaseDeg };
 }
 
-/** Discrete response on the grid, its phase shifted by a multiple of 360° to start beside `reference`. */
-export function discreteResponse(hIn: Zpk, omegas: number[], periodSec: number, reference?: Response): Response & { shiftDeg: number } {
-  const h = evaluator(hIn);
+/** The points e^{jωT} of a frequency grid (shared by every method at one sample period). */
+export interface UnitCircleGrid {
+  re: Float64Array;
+  im: Float64Array;
+}
+export function unitCircleGrid(omegas: readonly number[], periodSec: number): UnitCircleGrid {
   const n = omegas.length;
+  const re = new Float64Array(n);
+  const im = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const wt = omegas[i] * periodSec;
+    re[i] = Math.cos(wt);
+    im[i] = Math.sin(wt);
+  }
+  return { re, im };
+}
+
+/** Discrete response on the grid, its phase shifted by a multiple of 360° to start beside `reference`. */
+export function discreteResponse(hIn: Zpk | Evaluator, omegas: number[] | UnitCircleGrid, periodSec: number, reference?: Response): Response & { shiftDeg: number } {
+  const h = 'k' in hIn ? hIn : evaluator(hIn);
+  const g = Array.isArray(omegas) ? unitCircleGrid(omegas, periodSec) : omegas;
+  const gr = g.re;
+  const gi = g.im;
+  const n = gr.length;
   const magnitudeDb = new Array<number>(n);
   const phaseDeg = new Array<number>(n);
   for (let i = 0; i < n; i++) {
-    const wt = omegas[i] * periodSec;
-    evalInto(h, Math.cos(wt), Math.sin(wt));
+    evalInto(h, gr[i], gi[i]);
     magnitudeDb[i] = outDb;
     phaseDeg[i] = outDeg;
   }
@@ -226,58 +253,108 @@ const wrap180 = (deg: number) => {
 };
 
 /**
- * All gain and phase crossovers of a loop L(ω) on [lo, hi] rad/s: dense log grid, then
- * bisection on log ω (DESIGN.md lessons: dense evaluation, then refine). `at(ω)` gives
- * ln|L| and the phase in radians on any branch; the grid phase is unwrapped.
+ * Where a loop is evaluated for its crossovers: a log grid of ω on [lo, hi] rad/s with
+ * its points x = jω (continuous loop, periodSec null) or x = e^{jωT} (discrete loop).
+ * The same grid serves every method of a request (it depends only on T and ω₀).
  */
-export function findCrossings(at: (w: number) => { lnMag: number; ph: number }, lo: number, hi: number, points = 300): Crossings {
+export interface CrossingGrid {
+  ws: number[];
+  xr: Float64Array;
+  xi: Float64Array;
+  periodSec: number | null;
+}
+export function crossingGrid(lo: number, hi: number, points: number, periodSec: number | null): CrossingGrid {
   const ws = logGrid(lo, hi, points);
-  const mags: number[] = [];
-  const phs: number[] = [];
-  for (const w of ws) {
-    const v = at(w);
-    mags.push(v.lnMag);
-    const prev = phs.length ? phs[phs.length - 1] : v.ph;
-    phs.push(prev + wrapPi(v.ph - prev));
+  const n = ws.length;
+  const xr = new Float64Array(n);
+  const xi = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const w = ws[i];
+    if (periodSec === null) xi[i] = w;
+    else {
+      xr[i] = Math.cos(w * periodSec);
+      xi[i] = Math.sin(w * periodSec);
+    }
+  }
+  return { ws, xr, xi, periodSec };
+}
+
+/** lnMagPhaseInto at the point of ω (jω or e^{jωT}); `want` as there. */
+function loopAt(e: Evaluator, periodSec: number | null, w: number, want: number): void {
+  if (periodSec === null) lnMagPhaseInto(e, 0, w, want);
+  else lnMagPhaseInto(e, Math.cos(w * periodSec), Math.sin(w * periodSec), want);
+}
+
+/** Phase at ω on the branch nearest `ref` (rad). */
+function phaseNear(e: Evaluator, periodSec: number | null, w: number, ref: number): number {
+  loopAt(e, periodSec, w, WANT_PHASE);
+  return ref + wrapPi(lmPh - ref);
+}
+
+/**
+ * Root on log ω, between grid points a and b where f changes sign, by Illinois regula
+ * falsi. f is ln|L| (mode 0; fa, fb its values at a and b) or the phase on the branch
+ * of `ref` less `line` (mode 1).
+ */
+function bisectCrossing(e: Evaluator, T: number | null, a: number, b: number, mode: 0 | 1, fa: number, fb: number, ref: number, line: number): number {
+  const f = (w: number): number => {
+    if (mode === 0) {
+      loopAt(e, T, w, WANT_MAG);
+      return lmLn;
+    }
+    return phaseNear(e, T, w, ref) - line;
+  };
+  let x0 = Math.log(a);
+  let x1 = Math.log(b);
+  let f0 = mode === 0 ? fa : f(a);
+  let f1 = mode === 0 ? fb : f(b);
+  if (f0 === 0) return a;
+  if (f1 === 0) return b;
+  let side = 0;
+  for (let k = 0; k < 100 && Math.abs(x1 - x0) > 1e-15 * Math.max(1, Math.abs(x0)); k++) {
+    const x = (x0 * f1 - x1 * f0) / (f1 - f0);
+    const fx = f(Math.exp(x));
+    if (fx === 0) return Math.exp(x);
+    if (Math.sign(fx) === Math.sign(f1)) {
+      x1 = x;
+      f1 = fx;
+      if (side === -1) f0 /= 2;
+      side = -1;
+    } else {
+      x0 = x;
+      f0 = fx;
+      if (side === 1) f1 /= 2;
+      side = 1;
+    }
+    if (Math.abs(fx) < 1e-15) break;
+  }
+  return Math.exp((x0 * f1 - x1 * f0) / (f1 - f0));
+}
+
+/**
+ * All gain and phase crossovers of a zpk loop on a crossing grid: dense evaluation on
+ * the grid, then regula falsi on log ω (DESIGN.md lessons: dense evaluation, then
+ * refine). ln|L| and the phase (radians, any branch) come from lnMagPhaseInto; the grid
+ * phase is unwrapped.
+ */
+export function findCrossings(e: Evaluator, grid: CrossingGrid): Crossings {
+  const { ws, xr, xi, periodSec: T } = grid;
+  const n = ws.length;
+  const hi = ws[n - 1];
+  const mags = new Float64Array(n);
+  const phs = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    lnMagPhaseInto(e, xr[i], xi[i], WANT_BOTH);
+    mags[i] = lmLn;
+    const prev = i > 0 ? phs[i - 1] : lmPh;
+    phs[i] = prev + wrapPi(lmPh - prev);
   }
   const out: Crossings = { gain: [], phase: [] };
-  // Root of f between a and b (sign change), on log ω: Illinois regula falsi.
-  const bisect = (a: number, b: number, f: (w: number) => number): number => {
-    let x0 = Math.log(a);
-    let x1 = Math.log(b);
-    let f0 = f(a);
-    let f1 = f(b);
-    if (f0 === 0) return a;
-    if (f1 === 0) return b;
-    let side = 0;
-    for (let k = 0; k < 100 && Math.abs(x1 - x0) > 1e-15 * Math.max(1, Math.abs(x0)); k++) {
-      const x = (x0 * f1 - x1 * f0) / (f1 - f0);
-      const fx = f(Math.exp(x));
-      if (fx === 0) return Math.exp(x);
-      if (Math.sign(fx) === Math.sign(f1)) {
-        x1 = x;
-        f1 = fx;
-        if (side === -1) f0 /= 2;
-        side = -1;
-      } else {
-        x0 = x;
-        f0 = fx;
-        if (side === 1) f1 /= 2;
-        side = 1;
-      }
-      if (Math.abs(fx) < 1e-15) break;
-    }
-    return Math.exp((x0 * f1 - x1 * f0) / (f1 - f0));
-  };
-  const phaseNear = (w: number, ref: number) => {
-    const v = at(w).ph;
-    return ref + wrapPi(v - ref);
-  };
-  for (let i = 0; i + 1 < ws.length; i++) {
+  for (let i = 0; i + 1 < n; i++) {
     if (mags[i] === 0 || Math.sign(mags[i]) !== Math.sign(mags[i + 1])) {
       if (mags[i] === 0 && i > 0 && mags[i - 1] === 0) continue;
-      const w = mags[i] === 0 ? ws[i] : bisect(ws[i], ws[i + 1], (x) => at(x).lnMag);
-      const ph = phaseNear(w, phs[i]);
+      const w = mags[i] === 0 ? ws[i] : bisectCrossing(e, T, ws[i], ws[i + 1], 0, mags[i], mags[i + 1], 0, 0);
+      const ph = phaseNear(e, T, w, phs[i]);
       out.gain.push({ omega: w, phaseMarginDeg: wrap180(180 + ph * DEG) });
     }
     // crossing of a line −π + 2πm between grid points i and i+1
@@ -285,16 +362,16 @@ export function findCrossings(at: (w: number) => { lnMag: number; ph: number }, 
     const kb = Math.floor((phs[i + 1] + Math.PI) / (2 * Math.PI));
     if (ka !== kb) {
       const line = -Math.PI + 2 * Math.PI * Math.max(ka, kb);
-      const ref = phs[i];
-      const w = bisect(ws[i], ws[i + 1], (x) => phaseNear(x, ref) - line);
-      out.phase.push({ omega: w, gainMarginDb: (-20 / Math.LN10) * at(w).lnMag });
+      const w = bisectCrossing(e, T, ws[i], ws[i + 1], 1, 0, 0, phs[i], line);
+      loopAt(e, T, w, WANT_MAG);
+      out.phase.push({ omega: w, gainMarginDb: (-20 / Math.LN10) * lmLn });
     }
   }
   // The top end (Nyquist for a discrete loop, where L is real) may sit exactly on −180°.
-  const last = phs[phs.length - 1];
+  const last = phs[n - 1];
   const offLine = wrapPi(last + Math.PI);
   if (Math.abs(offLine) < 1e-7 && !out.phase.some((p) => Math.abs(p.omega - hi) <= 1e-9 * hi)) {
-    out.phase.push({ omega: hi, gainMarginDb: (-20 / Math.LN10) * mags[mags.length - 1] });
+    out.phase.push({ omega: hi, gainMarginDb: (-20 / Math.LN10) * mags[n - 1] });
   }
   return out;
 }
@@ -315,22 +392,36 @@ export function pickMargins(c: Crossings): Margins {
   };
 }
 
-/** ln|L| and ∠L of a zpk loop at x, in product form (one atan2). */
+/** ln|L| and ∠L of a zpk loop at x, in product form (one atan2 per product). */
 export function lnMagPhase(e: Evaluator, xr: number, xi: number): { lnMag: number; ph: number } {
+  lnMagPhaseInto(e, xr, xi, WANT_BOTH);
+  return { lnMag: lmLn, ph: lmPh };
+}
+
+const WANT_MAG = 1;
+const WANT_PHASE = 2;
+const WANT_BOTH = 3;
+// Results of lnMagPhaseInto (module scratch: the grid loops allocate nothing per point).
+let lmLn = 0;
+let lmPh = 0;
+
+/** lnMagPhase into lmLn / lmPh; only the parts in `want` (the other is left 0). */
+function lnMagPhaseInto(e: Evaluator, xr: number, xi: number, want: number): void {
+  const { zr, zi, pr, pi } = e;
   let vr = e.k;
   let vi = 0;
-  for (let i = 0; i < e.zr.length; i++) {
-    const dr = xr - e.zr[i];
-    const di = xi - e.zi[i];
+  for (let i = 0; i < zr.length; i++) {
+    const dr = xr - zr[i];
+    const di = xi - zi[i];
     const t = vr * dr - vi * di;
     vi = vr * di + vi * dr;
     vr = t;
   }
   let qr = 1;
   let qi = 0;
-  for (let i = 0; i < e.pr.length; i++) {
-    const dr = xr - e.pr[i];
-    const di = xi - e.pi[i];
+  for (let i = 0; i < pr.length; i++) {
+    const dr = xr - pr[i];
+    const di = xi - pi[i];
     const t = qr * dr - qi * di;
     qi = qr * di + qi * dr;
     qr = t;
@@ -338,10 +429,13 @@ export function lnMagPhase(e: Evaluator, xr: number, xi: number): { lnMag: numbe
   const m = Math.hypot(vr, vi) / Math.hypot(qr, qi);
   if (!(m > 0) || !Number.isFinite(m)) {
     // fall back to the log-sum form when the products under- or overflow
-    const rr = responseAt(e, { re: xr, im: xi });
-    return { lnMag: (rr.db * Math.LN10) / 20, ph: rr.deg / DEG };
+    evalInto(e, xr, xi);
+    lmLn = (outDb * Math.LN10) / 20;
+    lmPh = outDeg / DEG;
+    return;
   }
-  return { lnMag: Math.log(m), ph: Math.atan2(vi, vr) - Math.atan2(qi, qr) };
+  lmLn = want & WANT_MAG ? Math.log(m) : 0;
+  lmPh = want & WANT_PHASE ? Math.atan2(vi, vr) - Math.atan2(qi, qr) : 0;
 }
 
 // ------------------------------------------------------------------ loops and steps
@@ -355,49 +449,80 @@ export function closedLoopPoles(numDesc: number[], denDesc: number[], delay = 0)
 
 /** Response metrics of a step (DESIGN.md / issue 3: overshoot, 10–90 % rise, 2 % settling). */
 export function stepMetrics(t: number[], y: number[], finalValue: number | null): StepResponse {
-  const base: StepResponse = { timeSec: t, output: y, finalValue, overshootPercent: null, riseTimeSec: null, settlingTimeSec: null };
-  if (finalValue === null || finalValue === 0 || !Number.isFinite(finalValue)) return base;
+  return { timeSec: t, output: y, finalValue, ...stepFigures(y, y.length, (k) => t[k], finalValue) };
+}
+
+/**
+ * A step sampled every h seconds (t_k = k·h): figures from the first n samples of y,
+ * arrays of the first `shown` samples thinned to ≤ maxPoints (every stride-th and the last).
+ */
+export function uniformStep(y: ArrayLike<number>, n: number, h: number, finalValue: number | null, shown: number, maxPoints: number): StepResponse {
+  const timeSec: number[] = [];
+  const output: number[] = [];
+  if (shown > 0) {
+    const stride = Math.ceil(shown / maxPoints);
+    for (let k = 0; k < shown; k += stride) {
+      timeSec.push(k * h);
+      output.push(y[k]);
+    }
+    if ((shown - 1) % stride !== 0) {
+      timeSec.push((shown - 1) * h);
+      output.push(y[shown - 1]);
+    }
+  }
+  return { timeSec, output, finalValue, ...stepFigures(y, n, (k) => k * h, finalValue) };
+}
+
+function stepFigures(y: ArrayLike<number>, n: number, t: (k: number) => number, finalValue: number | null): Pick<StepResponse, 'overshootPercent' | 'riseTimeSec' | 'settlingTimeSec'> {
+  const none = { overshootPercent: null, riseTimeSec: null, settlingTimeSec: null };
+  if (finalValue === null || finalValue === 0 || !Number.isFinite(finalValue)) return none;
   const f = finalValue;
   const sgn = Math.sign(f);
   let peak = -Infinity;
-  for (const v of y) peak = Math.max(peak, sgn * v);
-  base.overshootPercent = Math.max(0, ((peak - Math.abs(f)) / Math.abs(f)) * 100);
+  for (let k = 0; k < n; k++) peak = Math.max(peak, sgn * y[k]);
+  const overshootPercent = Math.max(0, ((peak - Math.abs(f)) / Math.abs(f)) * 100);
   const cross = (level: number): number | null => {
-    for (let k = 0; k < y.length; k++) {
+    for (let k = 0; k < n; k++) {
       if (sgn * y[k] >= level) {
-        if (k === 0) return t[0];
+        if (k === 0) return t(0);
         const y0 = sgn * y[k - 1];
         const y1 = sgn * y[k];
-        return t[k - 1] + ((level - y0) / (y1 - y0)) * (t[k] - t[k - 1]);
+        const tk1 = t(k - 1);
+        return tk1 + ((level - y0) / (y1 - y0)) * (t(k) - tk1);
       }
     }
     return null;
   };
   const t10 = cross(0.1 * Math.abs(f));
   const t90 = cross(0.9 * Math.abs(f));
-  base.riseTimeSec = t10 !== null && t90 !== null ? t90 - t10 : null;
   const band = 0.02 * Math.abs(f);
   let lastOut = -1;
-  for (let k = 0; k < y.length; k++) if (Math.abs(y[k] - f) > band) lastOut = k;
-  base.settlingTimeSec = lastOut === y.length - 1 ? null : lastOut < 0 ? t[0] : t[lastOut + 1];
-  return base;
+  for (let k = 0; k < n; k++) if (Math.abs(y[k] - f) > band) lastOut = k;
+  return {
+    overshootPercent,
+    riseTimeSec: t10 !== null && t90 !== null ? t90 - t10 : null,
+    settlingTimeSec: lastOut === n - 1 ? null : lastOut < 0 ? t(0) : t(lastOut + 1),
+  };
 }
 
 /** y[k] = C x[k] + D, x[k+1] = F x[k] + g (a held unit step), k = 0 … steps. */
-function iterateStep(f: number[][], g: number[], c: number[], d: number, steps: number): number[] {
+function iterateStep(f: number[][], g: number[], c: number[], d: number, steps: number): Float64Array {
   const n = g.length;
   let x = new Float64Array(n);
   let nx = new Float64Array(n);
   const flat = new Float64Array(n * n);
   for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) flat[i * n + j] = f[i][j];
-  const y: number[] = new Array(steps + 1);
+  const gv = Float64Array.from(g);
+  const cv = Float64Array.from(c);
+  const y = new Float64Array(steps + 1);
   for (let k = 0; k <= steps; k++) {
     let v = d;
-    for (let i = 0; i < n; i++) v += c[i] * x[i];
+    for (let i = 0; i < n; i++) v += cv[i] * x[i];
     y[k] = v;
     for (let i = 0; i < n; i++) {
-      let s = g[i];
-      for (let j = 0; j < n; j++) s += flat[i * n + j] * x[j];
+      let s = gv[i];
+      const row = i * n;
+      for (let j = 0; j < n; j++) s += flat[row + j] * x[j];
       nx[i] = s;
     }
     const t = x;
@@ -408,15 +533,14 @@ function iterateStep(f: number[][], g: number[], c: number[], d: number, steps: 
 }
 
 /** Continuous step of a zpk closed loop, exactly sampled every h seconds (expm of the augmented matrix). */
-export function continuousStep(cl: Zpk, h: number, steps: number): number[] {
+export function continuousStep(cl: Zpk, h: number, steps: number): Float64Array {
   const ss = zpkToSs(cl);
   const { phi, gamma } = zohSs(ss, h);
   return iterateStep(phi, gamma, ss.c, ss.d, steps);
 }
 
 /** Discrete step of a z-domain zpk: x[k+1] = A x[k] + B, y = C x + D (cascade realization). */
-export function discreteStep(cl: Zpk, steps: number): number[] {
+export function discreteStep(cl: Zpk, steps: number): Float64Array {
   const ss = zpkToSs(cl);
   return iterateStep(ss.a, ss.b, ss.c, ss.d, steps);
 }
-

@@ -16,6 +16,7 @@ import {
   continuousDcGain,
   continuousResponse,
   continuousStep,
+  crossingGrid,
   discreteDcGain,
   discreteResponse,
   discreteStability,
@@ -28,8 +29,11 @@ import {
   pickMargins,
   responseAt,
   rootInfo,
-  stepMetrics,
+  uniformStep,
+  unitCircleGrid,
   zToS,
+  type CrossingGrid,
+  type Evaluator,
   type Response,
 } from './analysis';
 import { inputToZpk, zpkToTfDescending } from './lti';
@@ -67,12 +71,18 @@ function firstNonFinite(v: unknown): string | null {
   return hasNonFinite(v) ? pathOfNonFinite(v, 'answer') : null;
 }
 
-/** Fast scan (no paths built): true when a NaN or ±∞ sits anywhere in v. */
+/**
+ * Fast scan (no paths built): true when a NaN or ±∞ sits anywhere in v. Arrays of numbers
+ * (the bulk of an answer: responses, grids, steps) go to a monomorphic loop, which reads
+ * their elements unboxed; everything else is walked generically.
+ */
 function hasNonFinite(v: unknown): boolean {
-  if (typeof v === 'number') return !Number.isFinite(v);
+  if (typeof v === 'number') return v - v !== 0;
   if (v === null || typeof v !== 'object') return false;
   if (Array.isArray(v)) {
-    for (let i = 0; i < v.length; i++) {
+    const n = v.length;
+    if (n > 0 && typeof v[0] === 'number' && isNumberArray(v)) return !allFinite(v as number[]);
+    for (let i = 0; i < n; i++) {
       const x = v[i];
       if (typeof x === 'number') {
         if (x - x !== 0) return true; // NaN and ±∞ give NaN
@@ -80,8 +90,25 @@ function hasNonFinite(v: unknown): boolean {
     }
     return false;
   }
-  for (const k in v as Record<string, unknown>) if (hasNonFinite((v as Record<string, unknown>)[k])) return true;
+  const o = v as Record<string, unknown>;
+  for (const k in o) {
+    const x = o[k];
+    if (typeof x === 'number') {
+      if (x - x !== 0) return true;
+    } else if (x !== null && typeof x === 'object' && hasNonFinite(x)) return true;
+  }
   return false;
+}
+
+function isNumberArray(v: unknown[]): boolean {
+  for (let i = 0; i < v.length; i++) if (typeof v[i] !== 'number') return false;
+  return true;
+}
+
+function allFinite(v: number[]): boolean {
+  let acc = 0;
+  for (let i = 0; i < v.length; i++) acc += v[i] - v[i]; // stays 0 unless some v[i] is NaN or ±∞
+  return acc === 0;
 }
 
 function pathOfNonFinite(v: unknown, path: string): string | null {
@@ -182,6 +209,11 @@ function run(req: DiscretizeRequest): DiscretizeResponse {
   const omegas = frequencyHz.map((f) => 2 * Math.PI * f);
   const bandHz = req.bandHz ?? nyqHz / 4;
   const contResp = continuousResponse(comp.zpk, omegas);
+  // e^{jωT} on the grid, shared by every method's response
+  const circle = unitCircleGrid(omegas, T);
+  // the continuous compensator at the band edge, shared by every method's band errors
+  const wBand = 2 * Math.PI * bandHz;
+  const contAtBand = responseAt(comp.zpk, cx(0, wBand));
 
   // ---- plant and continuous loop
   let plantOut: DiscretizeResponse['plant'];
@@ -213,23 +245,29 @@ function run(req: DiscretizeRequest): DiscretizeResponse {
     const wLo = Math.min(omegas[0], ...rootsAll.map((m) => m / 100));
     const wHi = Math.max(10 * nyqRad, ...rootsAll.map((m) => m * 100));
     const le = evaluator(loopZpk);
-    const crossings = findCrossings((w) => lnMagPhase(le, 0, w), wLo, wHi);
+    const crossings = findCrossings(le, crossingGrid(wLo, wHi, 300, null));
     const horizon = stepHorizon(cl.poles, T);
     const nc = Math.min(1000, 4 * horizon.steps);
     const h = (horizon.steps * T) / nc;
-    const y = stable ? continuousStep(clZpk, h, nc) : [];
-    const full = stepMetrics(y.map((_, k) => k * h), y, stable ? continuousDcGain(clZpk) : null);
+    const y = stable ? continuousStep(clZpk, h, nc) : new Float64Array(0);
+    const fv = stable ? continuousDcGain(clZpk) : null;
+    // figures of the whole simulation; the window shown is known only from its settling time
+    const full = uniformStep(y, y.length, h, fv, 0, MAX_STEP_POINTS);
     // Window shown and simulated for the sampled loops: 2× the continuous settling time
     // (longer when a sampled loop has not settled in it).
     const settle = full.settlingTimeSec;
     stepSamples = settle !== null ? Math.max(20, Math.min(horizon.steps, Math.ceil((2 * settle) / T))) : horizon.steps;
     fullSamples = horizon.steps;
     const shown = Math.min(y.length, Math.floor((stepSamples * T) / h + 1e-9) + 1);
+    const shownStep = uniformStep(y, 0, h, fv, shown, MAX_STEP_POINTS);
+    shownStep.overshootPercent = full.overshootPercent;
+    shownStep.riseTimeSec = full.riseTimeSec;
+    shownStep.settlingTimeSec = full.settlingTimeSec;
     continuousLoop = {
       closedLoopPoles: cl.poles.map((p) => rootInfo(null, p, p)),
       stable,
       margins: pickMargins(crossings),
-      step: { ...thin(full, shown) },
+      step: shownStep,
     };
     // Common practice: sample 10–30× the closed-loop bandwidth; warn below 10×.
     const bw = closedLoopBandwidthRad(loopZpk, wLo, wHi);
@@ -243,13 +281,16 @@ function run(req: DiscretizeRequest): DiscretizeResponse {
 
   // ---- methods
   const methods: DiscretizeResponse['methods'] = {};
+  // crossover grid of the sampled loops: the same for every method
+  const loopGrid = plantD ? crossingGrid(Math.min(omegas[0], Math.PI / T / 1e4), Math.PI / T, 200, T) : null;
   for (const method of req.methods) {
     const d = discretizeZpk(comp.zpk, method, fs, w0 !== null ? { prewarpRadPerSec: w0 } : {});
     const usesW0 = method === 'prewarp' || (method === 'matched' && rootAtOrigin);
     const zeroOrigin = pairRoots(d.zpk.zeros, comp.zpk.zeros, T, BYINDEX[method]);
     const poleOrigin = pairRoots(d.zpk.poles, comp.zpk.poles, T, true);
-    const resp = discreteResponse(d.zpk, omegas, T, contResp);
-    const errs = bandErrors(comp.zpk, d.zpk, T, frequencyHz, bandHz, contResp, resp, resp.shiftDeg);
+    const de = evaluator(d.zpk);
+    const resp = discreteResponse(de, circle, T, contResp);
+    const errs = bandErrors(contAtBand, de, T, frequencyHz, bandHz, contResp, resp, resp.shiftDeg);
     const stab = discreteStability(d.zpk.poles);
     const result: MethodResult = {
       method,
@@ -267,8 +308,8 @@ function run(req: DiscretizeRequest): DiscretizeResponse {
       response: { magnitudeDb: resp.magnitudeDb, phaseDeg: resp.phaseDeg },
       ...errs,
     };
-    if (plantD && plantC && continuousLoop) {
-      const loop = discreteLoop(d, plantD, req.delaySamples, T, contLoopPoles, omegas[0], stepSamples, fullSamples);
+    if (plantD && plantC && continuousLoop && loopGrid) {
+      const loop = discreteLoop(d, plantD, req.delaySamples, T, contLoopPoles, loopGrid, stepSamples, fullSamples);
       result.closedLoopPoles = loop.closedLoopPoles.map((p) => p.z as Complex);
       result.loop = loop;
       if (continuousLoop.stable && !loop.stable) {
@@ -310,22 +351,44 @@ function illPosed(): DspInputError {
   ]);
 }
 
-/** Largest |Δ dB| and |Δ deg| on grid points up to bandHz and at bandHz itself. */
-function bandErrors(cont: Zpk, disc: Zpk, T: number, fHz: number[], bandHz: number, c: Response, d: Response, shiftDeg: number) {
-  let mag = { v: 0, f: Math.min(bandHz, fHz[0]) };
-  let ph = { v: 0, f: Math.min(bandHz, fHz[0]) };
-  const consider = (f: number, cm: number, cp: number, dm: number, dp: number) => {
-    const em = Math.abs(dm - cm);
-    const ep = Math.abs(dp - cp);
-    if (em > mag.v) mag = { v: em, f };
-    if (ep > ph.v) ph = { v: ep, f };
-  };
-  for (let i = 0; i < fHz.length && fHz[i] <= bandHz; i++) consider(fHz[i], c.magnitudeDb[i], c.phaseDeg[i], d.magnitudeDb[i], d.phaseDeg[i]);
+/**
+ * Largest |Δ dB| and |Δ deg| on grid points up to bandHz and at bandHz itself
+ * (`rc`: the continuous response there).
+ */
+function bandErrors(rc: { db: number; deg: number }, disc: Evaluator, T: number, fHz: number[], bandHz: number, c: Response, d: Response, shiftDeg: number) {
+  let magV = 0;
+  let magF = Math.min(bandHz, fHz[0]);
+  let phV = 0;
+  let phF = magF;
+  const cm = c.magnitudeDb;
+  const cp = c.phaseDeg;
+  const dm = d.magnitudeDb;
+  const dp = d.phaseDeg;
+  for (let i = 0; i < fHz.length && fHz[i] <= bandHz; i++) {
+    const em = Math.abs(dm[i] - cm[i]);
+    const ep = Math.abs(dp[i] - cp[i]);
+    if (em > magV) {
+      magV = em;
+      magF = fHz[i];
+    }
+    if (ep > phV) {
+      phV = ep;
+      phF = fHz[i];
+    }
+  }
   const w = 2 * Math.PI * bandHz;
-  const rc = responseAt(cont, cx(0, w));
   const rd = responseAt(disc, cx(Math.cos(w * T), Math.sin(w * T)));
-  consider(bandHz, rc.db, rc.deg, rd.db, rd.deg + shiftDeg);
-  return { maxMagnitudeErrorDb: mag.v, maxMagnitudeErrorAtHz: mag.f, maxPhaseErrorDeg: ph.v, maxPhaseErrorAtHz: ph.f };
+  const em = Math.abs(rd.db - rc.db);
+  const ep = Math.abs(rd.deg + shiftDeg - rc.deg);
+  if (em > magV) {
+    magV = em;
+    magF = bandHz;
+  }
+  if (ep > phV) {
+    phV = ep;
+    phF = bandHz;
+  }
+  return { maxMagnitudeErrorDb: magV, maxMagnitudeErrorAtHz: magF, maxPhaseErrorDeg: phV, maxPhaseErrorAtHz: phF };
 }
 
 /** Step window: ~8 time constants of the slowest continuous closed-loop pole, 20…2000 samples. */
@@ -340,15 +403,8 @@ const MAX_STEP_SAMPLES = 2000;
 const MAX_STEP_POINTS = 400;
 
 /** Metrics on the full simulation; the arrays sent are thinned to ≤ MAX_STEP_POINTS (last point kept). */
-function stepOut(y: number[], h: number, finalValue: number | null): StepResponse {
-  return thin(stepMetrics(y.map((_, k) => k * h), y, finalValue), y.length);
-}
-
-/** The first `count` points of a step, thinned to ≤ MAX_STEP_POINTS (the last one kept). */
-function thin(m: StepResponse, count: number): StepResponse {
-  const stride = Math.ceil(count / MAX_STEP_POINTS);
-  const keep = (_: number, k: number) => k < count && (k % stride === 0 || k === count - 1);
-  return { ...m, timeSec: m.timeSec.filter(keep), output: m.output.filter(keep) };
+function stepOut(y: Float64Array, h: number, finalValue: number | null): StepResponse {
+  return uniformStep(y, y.length, h, finalValue, y.length, MAX_STEP_POINTS);
 }
 
 /** −3 dB bandwidth of the continuous closed loop L/(1 + L), rad/s; null when none is found. */
@@ -373,7 +429,7 @@ function discreteLoop(
   delay: 0 | 1,
   T: number,
   contPoles: Complex[],
-  wLo: number,
+  grid: CrossingGrid,
   steps: number,
   maxSteps: number,
 ): LoopResult {
@@ -389,10 +445,10 @@ function discreteLoop(
   const stab = discreteStability(cl.poles);
   const origin = pairRoots(cl.poles, contPoles, T, false);
   const le = evaluator(loopZpk);
-  const crossings = findCrossings((w) => lnMagPhase(le, Math.cos(w * T), Math.sin(w * T)), Math.min(wLo, Math.PI / T / 1e4), Math.PI / T, 200);
+  const crossings = findCrossings(le, grid);
   const clZpk: Zpk = { zeros: loopZpk.zeros, poles: cl.poles, gain: loopZpk.gain / cl.lead };
   const dc = stab.stable ? discreteDcGain(clZpk) : null;
-  let step = stepOut(stab.stable ? discreteStep(clZpk, steps) : [], T, dc);
+  let step = stepOut(stab.stable ? discreteStep(clZpk, steps) : new Float64Array(0), T, dc);
   if (stab.stable && step.settlingTimeSec === null && maxSteps > steps) step = stepOut(discreteStep(clZpk, maxSteps), T, dc);
   return {
     closedLoopPoles: cl.poles.map((z, i) => rootInfo(z, zToS(z, T), origin[i])),

@@ -33,6 +33,8 @@ const nonzeroGain = z
  * - lead: K(s + zero)/(s + pole), zero and pole in rad/s (lead when zero < pole, lag when zero > pole)
  * - time-constant: K(tauZero·s + 1)/(tauPole·s + 1), time constants in s
  * - zpk / tf: the general forms; the values are in `compensator`
+ * - op-amp: the two-op-amp lead/lag network (input R1‖C1, feedback R2‖C2, then an inverting
+ *   stage R4/R3), values in ohms and farads; H(s) = (R4·C1)/(R3·C2) · (s + 1/(R1C1))/(s + 1/(R2C2))
  */
 export const entrySchema = z.discriminatedUnion('form', [
   z.strictObject({
@@ -49,6 +51,15 @@ export const entrySchema = z.discriminatedUnion('form', [
   }),
   z.strictObject({ form: z.literal('zpk') }),
   z.strictObject({ form: z.literal('tf') }),
+  z.strictObject({
+    form: z.literal('op-amp'),
+    r1: positive('r1').describe('ohms; input resistor, in parallel with C1'),
+    c1: positive('c1').describe('farads; input capacitor'),
+    r2: positive('r2').describe('ohms; feedback resistor of the first stage, in parallel with C2'),
+    c2: positive('c2').describe('farads; feedback capacitor of the first stage'),
+    r3: positive('r3').describe('ohms; input resistor of the inverting second stage'),
+    r4: positive('r4').describe('ohms; feedback resistor of the inverting second stage'),
+  }),
 ]);
 export type DesignEntry = z.infer<typeof entrySchema>;
 

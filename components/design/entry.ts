@@ -10,7 +10,7 @@ import type { DesignEntry } from '../../schemas/design';
  *
  * Field keys name the editor field an error belongs to, relative to the transfer function
  * being entered: "gain", "zero", "pole", "tauZero", "tauPole", "zeros.<row>", "poles.<row>",
- * "num", "den". Schema paths ("zeros.2", "num.0") are mapped onto them with `fieldForPath`.
+ * "num", "den", "r1" … "r4", "c1", "c2". Schema paths ("zeros.2", "num.0") are mapped onto them with `fieldForPath`.
  */
 
 // ------------------------------------------------------------------ form states
@@ -51,7 +51,24 @@ export interface TfFields {
   den: string;
 }
 
-export type EntryFields = LeadFields | TimeConstantFields | ZpkFields | TfFields;
+/**
+ * The two-op-amp lead/lag network: first stage inverting with input R1‖C1 and feedback R2‖C2,
+ * second stage inverting with input R3 and feedback R4. Values as typed, ohms and farads with
+ * SI prefixes allowed: "10k", "4.7u", "100n", "4k7".
+ */
+export interface OpAmpFields {
+  form: 'op-amp';
+  r1: string;
+  c1: string;
+  r2: string;
+  c2: string;
+  r3: string;
+  r4: string;
+}
+export const OP_AMP_PARTS = ['r1', 'c1', 'r2', 'c2', 'r3', 'r4'] as const;
+export type OpAmpPart = (typeof OP_AMP_PARTS)[number];
+
+export type EntryFields = LeadFields | TimeConstantFields | ZpkFields | TfFields | OpAmpFields;
 export type EntryForm = EntryFields['form'];
 /** The plant has no lead or time-constant form. */
 export type PlantFields = ZpkFields | TfFields;
@@ -93,6 +110,56 @@ export function parseCoefficients(text: string): number[] | string {
   return out;
 }
 
+/** SI prefixes accepted in component values; µ and μ both mean micro, and "u" is the ASCII spelling. */
+const SI_EXPONENT: Record<string, number> = { p: -12, n: -9, u: -6, 'µ': -6, 'μ': -6, m: -3, k: 3, M: 6, G: 9 };
+
+/**
+ * A component value with an optional SI prefix and unit → ohms or farads, or a message.
+ * "10k" → 1e4, "4.7u" → 4.7e-6, "100n" → 1e-7, "2.2M" → 2.2e6, "1m" → 1e-3 (case matters:
+ * m is milli, M mega); the letter may stand for the decimal point ("4k7" → 4700, "4R7" → 4.7 Ω);
+ * a trailing unit is allowed ("10 kΩ", "10kohm", "470R", "100nF"). The decimal is read as one
+ * literal ("4.7e-6"), so "4.7u" is exactly the double nearest 4.7·10⁻⁶.
+ */
+export function parseSi(text: string, unit: 'ohm' | 'farad'): number | string {
+  let t = text.trim().replace(/−/g, '-').replace(/\s+/g, '');
+  if (t === '') return 'Enter a value';
+  t = unit === 'ohm' ? t.replace(/(Ω|ohms?)$/i, '') : t.replace(/F$/i, '');
+  const rkm = /^(\d+)([pnuµμmkMGR])(\d+)$/.exec(t);
+  if (rkm) {
+    const [, whole, letter, frac] = rkm;
+    if (letter === 'R' && unit !== 'ohm') return 'R marks the decimal point of a resistance only';
+    const e = letter === 'R' ? 0 : SI_EXPONENT[letter];
+    return Number(`${whole}.${frac}e${e}`);
+  }
+  if (unit === 'ohm' && /R$/.test(t)) t = t.slice(0, -1);
+  const m = /^([+-]?(?:\d+\.?\d*|\.\d+)(?:e[+-]?\d+)?)([pnuµμmkMG])?$/i.exec(t);
+  // the prefix match is case-insensitive above only to give a clear message for e.g. "10K"
+  if (!m) return unit === 'ohm' ? 'Not a resistance (e.g. 10k, 4k7, 470)' : 'Not a capacitance (e.g. 100n, 4.7u)';
+  const [, mantissa, prefix] = m;
+  if (prefix === undefined) {
+    const v = Number(mantissa);
+    return Number.isFinite(v) ? v : 'Not a finite number';
+  }
+  if (!(prefix in SI_EXPONENT)) return `Unknown prefix "${prefix}" (use p, n, u, m, k, M or G; m is milli, M mega)`;
+  if (/e/i.test(mantissa)) return 'Use an exponent or a prefix, not both';
+  const v = Number(`${mantissa}e${SI_EXPONENT[prefix]}`);
+  return Number.isFinite(v) ? v : 'Not a finite number';
+}
+
+/** Ohms or farads as short text with an SI prefix (ASCII u for micro): 4700 → "4.7k", 1e-7 → "100n". */
+export function formatSi(v: number): string {
+  if (v === 0 || !Number.isFinite(v)) return formatNumber(v);
+  const e3 = Math.min(9, Math.max(-12, Math.floor(Math.log10(Math.abs(v)) / 3) * 3));
+  let mantissa = Number((v / 10 ** e3).toPrecision(12));
+  let e = e3;
+  if (Math.abs(mantissa) >= 1000 && e < 9) {
+    mantissa = Number((mantissa / 1000).toPrecision(12));
+    e += 3;
+  }
+  const prefix = Object.entries(SI_EXPONENT).find(([p, x]) => x === e && p !== 'µ' && p !== 'μ')?.[0] ?? '';
+  return `${formatNumber(mantissa)}${prefix}`;
+}
+
 /** Shortest text that gives the number back to 12 significant digits. */
 export function formatNumber(v: number): string {
   if (v === 0) return '0';
@@ -112,6 +179,23 @@ export function leadToZpk(gain: number, zeroRadPerSec: number, poleRadPerSec: nu
  */
 export function timeConstantToZpk(gain: number, tauZeroSec: number, tauPoleSec: number): CompensatorInput {
   return { form: 'zpk', zeros: [-1 / tauZeroSec], poles: [-1 / tauPoleSec], gain: (gain * tauZeroSec) / tauPoleSec };
+}
+
+/**
+ * The two-op-amp lead/lag network → zpk (standard circuit result, from memory):
+ *   H(s) = (R4·C1)/(R3·C2) · (s + 1/(R1C1)) / (s + 1/(R2C2)).
+ * Derivation from the impedances: Z1 = R1‖(1/(C1s)) = R1/(1 + R1C1s), Z2 = R2/(1 + R2C2s).
+ * Inverting stage one gives −Z2/Z1 = −(R2/R1)·(1 + R1C1s)/(1 + R2C2s); inverting stage two
+ * −R4/R3. The product (the two minus signs cancel) is
+ *   (R2R4)/(R1R3) · (1 + R1C1s)/(1 + R2C2s)
+ *   = (R2R4)/(R1R3) · (R1C1)/(R2C2) · (s + 1/(R1C1))/(s + 1/(R2C2))
+ *   = (R4C1)/(R3C2) · (s + 1/(R1C1))/(s + 1/(R2C2)).
+ * Zero at −1/(R1C1), pole at −1/(R2C2), root-locus gain R4C1/(R3C2), DC gain R2R4/(R1R3);
+ * a lead when R1C1 > R2C2 (zero below the pole), a lag when R1C1 < R2C2.
+ * Units: ohms and farads in, rad/s out.
+ */
+export function opAmpToZpk(v: Record<OpAmpPart, number>): CompensatorInput {
+  return { form: 'zpk', zeros: [-1 / (v.r1 * v.c1)], poles: [-1 / (v.r2 * v.c2)], gain: (v.r4 * v.c1) / (v.r3 * v.c2) };
 }
 
 /** Inverse of timeConstantToZpk for one real zero and pole, both strictly negative; else null. */
@@ -206,6 +290,11 @@ export function fieldForPath(fields: EntryFields, path: ReadonlyArray<PropertyKe
       return 'gain';
     case 'tf':
       return head === 'den' ? 'den' : 'num';
+    case 'op-amp':
+      // the zero is set by R1C1, the pole by R2C2, the gain by R4/R3 (and C1/C2)
+      if (head === 'zeros') return 'r1';
+      if (head === 'poles') return 'r2';
+      return 'r4';
   }
 }
 
@@ -264,6 +353,21 @@ export function buildCompensator(fields: EntryFields): BuildResult {
       }
       break;
     }
+    case 'op-amp': {
+      const values: Partial<Record<OpAmpPart, number>> = {};
+      for (const part of OP_AMP_PARTS) {
+        const v = parseSi(fields[part], part.startsWith('r') ? 'ohm' : 'farad');
+        if (typeof v === 'string') errors[part] = v;
+        else if (!(v > 0)) errors[part] = `${part.toUpperCase()} must be greater than 0`;
+        else values[part] = v;
+      }
+      if (Object.keys(errors).length === 0) {
+        const v = values as Record<OpAmpPart, number>;
+        candidate = opAmpToZpk(v);
+        entry = { form: 'op-amp', ...v };
+      }
+      break;
+    }
     case 'tf': {
       const num = parseCoefficients(fields.num);
       const den = parseCoefficients(fields.den);
@@ -307,6 +411,9 @@ export function fieldsFromCompensator(c: CompensatorInput, entry?: DesignEntry):
   if (entry?.form === 'time-constant') {
     return { form: 'time-constant', gain: formatNumber(entry.gain), tauZero: formatNumber(entry.tauZero), tauPole: formatNumber(entry.tauPole) };
   }
+  if (entry?.form === 'op-amp') {
+    return { form: 'op-amp', r1: formatSi(entry.r1), c1: formatSi(entry.c1), r2: formatSi(entry.r2), c2: formatSi(entry.c2), r3: formatSi(entry.r3), r4: formatSi(entry.r4) };
+  }
   if (c.form === 'tf') return { form: 'tf', num: c.num.map(formatNumber).join(', '), den: c.den.map(formatNumber).join(', ') };
   return { form: 'zpk', gain: formatNumber(c.gain), zeros: rootsToRows(c.zeros), poles: rootsToRows(c.poles) };
 }
@@ -349,6 +456,9 @@ export function switchForm(target: EntryForm, current: EntryFields, parsed?: Par
       if (built?.form === 'tf') return current;
       if (parsed && built) return { form: 'tf', num: parsed.numDescending.map(formatNumber).join(', '), den: parsed.denDescending.map(formatNumber).join(', ') };
       return emptyFields('tf');
+    case 'op-amp':
+      // component values do not follow from H(s) alone (one degree of freedom per stage)
+      return emptyFields('op-amp');
   }
 }
 
@@ -356,6 +466,7 @@ export function emptyFields(form: 'lead'): LeadFields;
 export function emptyFields(form: 'time-constant'): TimeConstantFields;
 export function emptyFields(form: 'zpk'): ZpkFields;
 export function emptyFields(form: 'tf'): TfFields;
+export function emptyFields(form: 'op-amp'): OpAmpFields;
 export function emptyFields(form: EntryForm): EntryFields;
 export function emptyFields(form: EntryForm): EntryFields {
   switch (form) {
@@ -367,5 +478,7 @@ export function emptyFields(form: EntryForm): EntryFields {
       return { form, gain: '', zeros: [], poles: [{ re: '', im: '' }] };
     case 'tf':
       return { form, num: '', den: '' };
+    case 'op-amp':
+      return { form, r1: '', c1: '', r2: '', c2: '', r3: '', r4: '' };
   }
 }

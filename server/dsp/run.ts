@@ -80,9 +80,9 @@ function hasNonFinite(v: unknown): boolean {
   if (typeof v === 'number') return v - v !== 0;
   if (v === null || typeof v !== 'object') return false;
   if (Array.isArray(v)) {
-    const n = v.length;
-    if (n > 0 && typeof v[0] === 'number' && isNumberArray(v)) return !allFinite(v as number[]);
-    for (let i = 0; i < n; i++) {
+    const s = numbersScan(v);
+    if (s !== NOT_ALL_NUMBERS) return s === HAS_NON_FINITE;
+    for (let i = 0; i < v.length; i++) {
       const x = v[i];
       if (typeof x === 'number') {
         if (x - x !== 0) return true; // NaN and ±∞ give NaN
@@ -100,15 +100,19 @@ function hasNonFinite(v: unknown): boolean {
   return false;
 }
 
-function isNumberArray(v: unknown[]): boolean {
-  for (let i = 0; i < v.length; i++) if (typeof v[i] !== 'number') return false;
-  return true;
-}
+const ALL_FINITE = 0;
+const HAS_NON_FINITE = 1;
+const NOT_ALL_NUMBERS = 2;
 
-function allFinite(v: number[]): boolean {
+/** One pass over an array: every element a finite number, numbers with a NaN/±∞, or not all numbers. */
+function numbersScan(v: unknown[]): number {
   let acc = 0;
-  for (let i = 0; i < v.length; i++) acc += v[i] - v[i]; // stays 0 unless some v[i] is NaN or ±∞
-  return acc === 0;
+  for (let i = 0; i < v.length; i++) {
+    const x = v[i];
+    if (typeof x !== 'number') return NOT_ALL_NUMBERS;
+    acc += x - x; // stays 0 unless some x is NaN or ±∞
+  }
+  return acc === 0 ? ALL_FINITE : HAS_NON_FINITE;
 }
 
 function pathOfNonFinite(v: unknown, path: string): string | null {

@@ -4,15 +4,17 @@ import { Button } from '../ui/Button';
 import { Segmented } from '../ui/Segmented';
 import { Text } from '../ui/Text';
 import { TextField } from '../ui/TextField';
-import type { EntryFields, EntryForm, FieldErrors, ParsedContinuous, PlantFields, RootRow, TfFields, ZpkFields } from './entry';
-import { switchForm } from './entry';
+import type { EntryFields, EntryForm, FieldErrors, OpAmpFields, OpAmpPart, ParsedContinuous, PlantFields, RootRow, TfFields, ZpkFields } from './entry';
+import { buildCompensator, switchForm, zpkToLead } from './entry';
+import { fmt } from './format';
 
-/** Names of the entry forms on screen. */
+/** Names of the entry forms on screen (short: all five fit one row at 390 px). */
 const ENTRY_FORM_OPTIONS: { value: EntryForm; label: string }[] = [
-  { value: 'lead', label: 'Lead / lag' },
+  { value: 'lead', label: 'Lead/lag' },
   { value: 'time-constant', label: 'Time const.' },
   { value: 'zpk', label: 'Roots' },
-  { value: 'tf', label: 'Polynomials' },
+  { value: 'tf', label: 'Coeffs' },
+  { value: 'op-amp', label: 'Op-amp' },
 ];
 const PLANT_FORM_OPTIONS: { value: 'zpk' | 'tf'; label: string }[] = [
   { value: 'tf', label: 'Polynomials' },
@@ -88,8 +90,56 @@ export function CompensatorEntry({ fields, onChange, errors, readOnly, parsed }:
           <Text variant="small">Zero at −1/τ₁, pole at −1/τ₂, root-locus gain K·τ₁/τ₂.</Text>
         </>
       )}
+      {fields.form === 'op-amp' && <OpAmpEntry fields={fields} onChange={onChange} errors={errors} readOnly={readOnly} />}
       {fields.form === 'zpk' && <ZpkEntry prefix="comp" fields={fields} onChange={onChange} errors={errors} readOnly={readOnly} />}
       {fields.form === 'tf' && <TfEntry prefix="comp" fields={fields} onChange={onChange} errors={errors} readOnly={readOnly} />}
+    </View>
+  );
+}
+
+const OP_AMP_LABELS: Record<OpAmpPart, { label: string; placeholder: string }> = {
+  r1: { label: 'R1 (Ω)', placeholder: 'e.g. 47k' },
+  c1: { label: 'C1 (F)', placeholder: 'e.g. 1u' },
+  r2: { label: 'R2 (Ω)', placeholder: 'e.g. 4k7' },
+  c2: { label: 'C2 (F)', placeholder: 'e.g. 1u' },
+  r3: { label: 'R3 (Ω)', placeholder: 'e.g. 10k' },
+  r4: { label: 'R4 (Ω)', placeholder: 'e.g. 22k' },
+};
+
+/** The two-op-amp lead/lag network: first stage R1‖C1 in, R2‖C2 back; second stage −R4/R3. */
+function OpAmpEntry({ fields, onChange, errors, readOnly }: { fields: OpAmpFields; onChange(f: OpAmpFields): void; errors: FieldErrors; readOnly?: boolean }) {
+  const { space } = useTheme();
+  const field = (part: OpAmpPart) => (
+    <Cell key={part}>
+      <TextField
+        testID={`opamp-${part}`}
+        label={OP_AMP_LABELS[part].label}
+        placeholder={OP_AMP_LABELS[part].placeholder}
+        value={fields[part]}
+        onChangeText={(text) => onChange({ ...fields, [part]: text })}
+        error={errors[part]}
+        editable={!readOnly}
+        autoCapitalize="none"
+        autoCorrect={false}
+      />
+    </Cell>
+  );
+  const built = buildCompensator(fields).compensator;
+  const lead = built ? zpkToLead(built) : null;
+  return (
+    <View style={{ gap: space.md }}>
+      <Text variant="mono" style={{ fontSize: 13 }}>H(s) = (R4·C1)/(R3·C2) · (s + 1/(R1C1)) / (s + 1/(R2C2))</Text>
+      <Text variant="label">First stage: input R1 ‖ C1, feedback R2 ‖ C2</Text>
+      <Row>{(['r1', 'c1'] as const).map(field)}</Row>
+      <Row>{(['r2', 'c2'] as const).map(field)}</Row>
+      <Text variant="label">Second stage (inverting): input R3, feedback R4</Text>
+      <Row>{(['r3', 'r4'] as const).map(field)}</Row>
+      {lead ? (
+        <Text variant="mono" style={{ fontSize: 13 }} testID="opamp-hs">
+          H(s) = {fmt(lead.gain)} (s + {fmt(lead.zero)}) / (s + {fmt(lead.pole)}) · {lead.zero < lead.pole ? 'lead' : lead.zero > lead.pole ? 'lag' : 'flat'}, DC gain R2R4/(R1R3) = {fmt((lead.gain * lead.zero) / lead.pole)}
+        </Text>
+      ) : null}
+      <Text variant="small">Ohms and farads; prefixes p, n, u, m, k, M, G (m is milli, M mega), also 4k7. A lead when R1C1 &gt; R2C2.</Text>
     </View>
   );
 }

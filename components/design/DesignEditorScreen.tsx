@@ -15,7 +15,8 @@ import { TextField } from '../ui/TextField';
 import { AnalysisPanel } from './AnalysisPanel';
 import { Cautions } from './Cautions';
 import { CompensatorEntry, PlantEntry } from './CompensatorEntry';
-import type { FieldErrors } from './entry';
+import { buildCompensator, formatNumber, type FieldErrors } from './entry';
+import { PolePlacementPanel } from './PolePlacementPanel';
 import { useCreateDesign, useDesign, useDesignVersion, useDiscretize, useSaveSpec, useUpdateDesign } from './queries';
 import { DelayField, SamplingFields, ToleranceFields } from './SamplingFields';
 import { buildSpec, discretizeRequestFor, editorStateFromSpec, errorsFromIssues, newEditorState, type EditorState } from './spec';
@@ -102,6 +103,7 @@ function Editor({ designId, initial, readOnly, canWrite: writable, versionNumber
   const analysis = useDiscretize(request?.body ?? null);
   const server = analysis.error && isApiRequestError(analysis.error, 400) ? errorsFromIssues(state, analysis.error.issues) : { errors: {}, general: [] as string[] };
   const errors: FieldErrors = { ...server.errors, ...built.errors };
+  const placementPlant = useMemo(() => (state.plantOn ? buildCompensator(state.plant).compensator ?? null : null), [state.plantOn, state.plant]);
 
   const create = useCreateDesign(workspace.id);
   const save = useSaveSpec(workspace.id, designId ?? -1);
@@ -155,6 +157,14 @@ function Editor({ designId, initial, readOnly, canWrite: writable, versionNumber
       )}
       <Section title="Compensator" hint="Continuous-time, roots in rad/s.">
         <CompensatorEntry fields={state.entry} onChange={(entry) => patch({ entry })} errors={under(errors, 'compensator.')} readOnly={readOnly} parsed={analysis.data?.continuous} />
+        {state.entry.form === 'lead' && !readOnly && (
+          <PolePlacementPanel
+            plant={placementPlant}
+            plantOn={state.plantOn}
+            onAskPlant={() => patch({ plantOn: true })}
+            onUseLead={(l) => patch({ entry: { form: 'lead', gain: formatNumber(l.gain), zero: formatNumber(l.zero), pole: formatNumber(l.pole) } })}
+          />
+        )}
       </Section>
       <Section title="Sampling">
         <SamplingFields state={state} onChange={patch} errors={errors} readOnly={readOnly} defaults={analysis.data ? { prewarpHz: analysis.data.prewarpHz, bandHz: analysis.data.bandHz } : undefined} />

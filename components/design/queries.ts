@@ -10,12 +10,13 @@ import {
   type UpdateDesignRequest,
 } from '../../schemas/design';
 import { discretizeResponseSchema, type DiscretizeRequestBody } from '../../schemas/discretize';
+import { leadPlacementResponseSchema, type LeadPlacementRequestBody } from '../../schemas/lead-placement';
 import { apiFetch } from '../data/api';
 import { staleTimes } from '../data/query-client';
 
 /**
  * Query keys and hooks of designs (…/workspaces/:workspaceId/designs) and of the compute
- * API (POST /api/v1/discretize). One key root per resource; mutations invalidate through it.
+ * API (POST /api/v1/discretize, POST /api/v1/lead-placement). One key root per resource; mutations invalidate through it.
  */
 export const designKeys = {
   all: ['designs'] as const,
@@ -132,5 +133,12 @@ export function useDiscretize(body: DiscretizeRequestBody | null) {
     placeholderData: keepPreviousData,
     staleTime: COMPUTE_STALE_MS,
     retry: false,
+  });
+}
+
+/** Lead placement for a target ζ, ωn (stateless, nothing cached or invalidated): a mutation the user runs. */
+export function useLeadPlacement() {
+  return useMutation({
+    mutationFn: (body: LeadPlacementRequestBody) => apiFetch('/api/v1/lead-placement', { method: 'POST', body, schema: leadPlacementResponseSchema }),
   });
 }

@@ -21,14 +21,21 @@ const web = spawn(process.execPath, [require.resolve('expo/bin/cli', { paths: [R
 console.log(`\nSamplewright dev: open http://${host}:${webPort} (API on http://${host}:${apiPort})\n`);
 
 let stopping = false;
+let running = 2;
+let exitCode = 0;
 function stop(code: number) {
+  exitCode ||= code;
   if (stopping) return;
   stopping = true;
-  api.kill('SIGTERM');
+  api.kill('SIGTERM'); // the API stops its MariaDB on SIGTERM
   web.kill('SIGTERM');
-  setTimeout(() => process.exit(code), 8000).unref();
 }
-api.on('exit', (c) => stop(c ?? 0));
-web.on('exit', (c) => stop(c ?? 0));
+function exited(code: number | null) {
+  running -= 1;
+  stop(code ?? 0);
+  if (running === 0) process.exit(exitCode);
+}
+api.on('exit', exited);
+web.on('exit', exited);
 process.on('SIGINT', () => stop(0));
 process.on('SIGTERM', () => stop(0));

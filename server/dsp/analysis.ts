@@ -1,5 +1,5 @@
 import type { Margins, RootInfo, StepResponse } from '../../schemas/discretize';
-import { abs, cx, log1p, sub } from './complex';
+import { abs, cx, hypot, log1p, sub } from './complex';
 import { evalZpk } from './lti';
 import { polyAdd, polyRoots, trimLeading } from './poly';
 import { zohSs, zpkToSs } from './realization';
@@ -177,8 +177,8 @@ function evalInto(e: Evaluator, xr: number, xi: number): void {
 /** 20·log10|H(x)| as a sum of logs (no overflow); the slow path of responseAt. */
 function logSumDb(e: Evaluator, x: Complex): number {
   let l = Math.log(Math.abs(e.k));
-  for (let i = 0; i < e.zr.length; i++) l += Math.log(Math.hypot(x.re - e.zr[i], x.im - e.zi[i]));
-  for (let i = 0; i < e.pr.length; i++) l -= Math.log(Math.hypot(x.re - e.pr[i], x.im - e.pi[i]));
+  for (let i = 0; i < e.zr.length; i++) l += Math.log(hypot(x.re - e.zr[i], x.im - e.zi[i]));
+  for (let i = 0; i < e.pr.length; i++) l -= Math.log(hypot(x.re - e.pr[i], x.im - e.pi[i]));
   return (20 / Math.LN10) * l;
 }
 
@@ -426,7 +426,7 @@ function lnMagPhaseInto(e: Evaluator, xr: number, xi: number, want: number): voi
     qi = qr * di + qi * dr;
     qr = t;
   }
-  const m = Math.hypot(vr, vi) / Math.hypot(qr, qi);
+  const m = hypot(vr, vi) / hypot(qr, qi);
   if (!(m > 0) || !Number.isFinite(m)) {
     // fall back to the log-sum form when the products under- or overflow
     evalInto(e, xr, xi);

@@ -1,3 +1,4 @@
+import { hypot } from './complex';
 import type { Complex } from './types';
 
 /**
@@ -119,9 +120,9 @@ export function complexDet(mIn: Complex[][]): Complex {
   let dIm = 0;
   for (let col = 0; col < n; col++) {
     let piv = col;
-    let best = Math.hypot(re[col][col], im[col][col]);
+    let best = hypot(re[col][col], im[col][col]);
     for (let i = col + 1; i < n; i++) {
-      const v = Math.hypot(re[i][col], im[i][col]);
+      const v = hypot(re[i][col], im[i][col]);
       if (v > best) {
         best = v;
         piv = i;

@@ -1,4 +1,4 @@
-import { abs, cx, div, exp, expm1, mul, scale, sub } from './complex';
+import { abs, cx, div, exp, expm1, hypot, mul, scale, sub } from './complex';
 import { DspInputError } from './errors';
 import { complexDet } from './linalg';
 import { evalZpk, zpkToDiscreteTf } from './lti';
@@ -204,7 +204,7 @@ function zohZeros(ss: StateSpace, phi: number[][], gamma: number[], phiMinusI: n
   if (dropOne) {
     let best = 0;
     w.forEach((v, i) => {
-      if (Math.hypot(v.re + 1, v.im) < Math.hypot(w[best].re + 1, w[best].im)) best = i;
+      if (hypot(v.re + 1, v.im) < hypot(w[best].re + 1, w[best].im)) best = i;
     });
     w.splice(best, 1);
   }

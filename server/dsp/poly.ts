@@ -1,5 +1,5 @@
 import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
-import { abs, add, cx, div, mul, sub } from './complex';
+import { abs, add, cx, div, hypot, mul, sub } from './complex';
 import type { Complex } from './types';
 
 /**
@@ -80,7 +80,7 @@ export function splitRoots(roots: readonly Complex[]): { real: number[]; pairs: 
     let bestD = Infinity;
     lower.forEach((l, j) => {
       if (used[j]) return;
-      const d = Math.hypot(l.re - u.re, l.im + u.im);
+      const d = hypot(l.re - u.re, l.im + u.im);
       if (d < bestD) {
         bestD = d;
         best = j;

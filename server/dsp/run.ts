@@ -9,7 +9,7 @@ import {
   type StepResponse,
 } from '../../schemas/discretize';
 import { MAX_ROOT_MAGNITUDE, type CompensatorInput } from '../../schemas/compensator';
-import { abs, cx } from './complex';
+import { abs, cx, hypot } from './complex';
 import { DspInputError } from './errors';
 import {
   closedLoopPoles,
@@ -66,27 +66,47 @@ export function runDiscretize(req: DiscretizeRequest): DiscretizeResponse {
   }
 }
 
-/** Path of the first NaN/±∞ in a JSON-like value, or null (a JSON answer cannot carry them). */
-function firstNonFinite(v: unknown): string | null {
-  return hasNonFinite(v) ? pathOfNonFinite(v, 'answer') : null;
+/** Path of the first NaN/±∞ in the answer, or null (a JSON answer cannot carry them). */
+function firstNonFinite(res: DiscretizeResponse): string | null {
+  // The long number arrays (grid, responses, steps) are checked by a tight loop; the
+  // generic walk covers everything else and skips exactly those arrays.
+  const bulk = bulkArrays(res);
+  let bad = false;
+  for (let i = 0; i < bulk.length && !bad; i++) bad = !finiteArray(bulk[i]);
+  if (!bad) bad = hasNonFinite(res, new Set<unknown>(bulk));
+  return bad ? pathOfNonFinite(res, 'answer') : null;
 }
 
-/**
- * Fast scan (no paths built): true when a NaN or ±∞ sits anywhere in v. Arrays of numbers
- * (the bulk of an answer: responses, grids, steps) go to a monomorphic loop, which reads
- * their elements unboxed; everything else is walked generically.
- */
-function hasNonFinite(v: unknown): boolean {
+/** The answer's long arrays of numbers. */
+function bulkArrays(res: DiscretizeResponse): number[][] {
+  const out: number[][] = [res.frequencyHz, res.continuous.response.magnitudeDb, res.continuous.response.phaseDeg];
+  if (res.continuousLoop) out.push(res.continuousLoop.step.timeSec, res.continuousLoop.step.output);
+  for (const name in res.methods) {
+    const m = res.methods[name as MethodName];
+    if (!m) continue;
+    out.push(m.response.magnitudeDb, m.response.phaseDeg);
+    if (m.loop) out.push(m.loop.step.timeSec, m.loop.step.output);
+  }
+  return out;
+}
+
+function finiteArray(v: readonly number[]): boolean {
+  let acc = 0;
+  for (let i = 0; i < v.length; i++) acc += v[i] - v[i]; // stays 0 unless some v[i] is NaN or ±∞
+  return acc === 0;
+}
+
+/** Fast scan (no paths built): true when a NaN or ±∞ sits anywhere in v outside the arrays in `skip`. */
+function hasNonFinite(v: unknown, skip: Set<unknown>): boolean {
   if (typeof v === 'number') return v - v !== 0;
   if (v === null || typeof v !== 'object') return false;
   if (Array.isArray(v)) {
-    const s = numbersScan(v);
-    if (s !== NOT_ALL_NUMBERS) return s === HAS_NON_FINITE;
+    if (skip.has(v)) return false;
     for (let i = 0; i < v.length; i++) {
       const x = v[i];
       if (typeof x === 'number') {
         if (x - x !== 0) return true; // NaN and ±∞ give NaN
-      } else if (x !== null && typeof x === 'object' && hasNonFinite(x)) return true;
+      } else if (x !== null && typeof x === 'object' && hasNonFinite(x, skip)) return true;
     }
     return false;
   }
@@ -95,24 +115,9 @@ function hasNonFinite(v: unknown): boolean {
     const x = o[k];
     if (typeof x === 'number') {
       if (x - x !== 0) return true;
-    } else if (x !== null && typeof x === 'object' && hasNonFinite(x)) return true;
+    } else if (x !== null && typeof x === 'object' && hasNonFinite(x, skip)) return true;
   }
   return false;
-}
-
-const ALL_FINITE = 0;
-const HAS_NON_FINITE = 1;
-const NOT_ALL_NUMBERS = 2;
-
-/** One pass over an array: every element a finite number, numbers with a NaN/±∞, or not all numbers. */
-function numbersScan(v: unknown[]): number {
-  let acc = 0;
-  for (let i = 0; i < v.length; i++) {
-    const x = v[i];
-    if (typeof x !== 'number') return NOT_ALL_NUMBERS;
-    acc += x - x; // stays 0 unless some x is NaN or ±∞
-  }
-  return acc === 0 ? ALL_FINITE : HAS_NON_FINITE;
 }
 
 function pathOfNonFinite(v: unknown, path: string): string | null {
@@ -418,7 +423,7 @@ function closedLoopBandwidthRad(loop: Zpk, lo: number, hi: number): number | nul
   const tmag = (w: number) => {
     const { lnMag, ph } = lnMagPhase(e, 0, w);
     const m = Math.exp(lnMag);
-    return m / Math.hypot(1 + m * Math.cos(ph), m * Math.sin(ph));
+    return m / hypot(1 + m * Math.cos(ph), m * Math.sin(ph));
   };
   const t0 = tmag(ws[0]);
   if (!(t0 > 0) || !Number.isFinite(t0)) return null;

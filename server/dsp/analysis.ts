@@ -1,5 +1,5 @@
 import type { Margins, RootInfo, StepResponse } from '../../schemas/discretize';
-import { abs, cx, hypot, log1p, sub } from './complex';
+import { abs, cx, hypot as complexHypot, log1p, sub } from './complex';
 import { evalZpk } from './lti';
 import { polyAdd, polyRoots, trimLeading } from './poly';
 import { zohSs, zpkToSs } from './realization';
@@ -11,6 +11,9 @@ import type { Complex, Zpk } from './types';
  * rad/s inside, Hz on the wire; magnitudes dB; phases degrees.
  */
 
+// bound once: a module-local name is called directly in the grid loops (an imported
+// binding is read through the module's export object on every call)
+const hypot = complexHypot;
 const DEG = 180 / Math.PI;
 /** |z| within this of 1 counts as on the unit circle (roots mapped from s = jω land there up to rounding). */
 export const UNIT_CIRCLE_TOL = 1e-12;

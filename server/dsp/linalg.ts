@@ -8,7 +8,15 @@ import type { Complex } from './types';
  */
 export type Mat = number[][];
 
-export const zeros = (r: number, c: number): Mat => Array.from({ length: r }, () => new Array<number>(c).fill(0));
+export function zeros(r: number, c: number): Mat {
+  const m: Mat = [];
+  for (let i = 0; i < r; i++) {
+    const row: number[] = [];
+    for (let j = 0; j < c; j++) row.push(0);
+    m.push(row);
+  }
+  return m;
+}
 export const identity = (n: number): Mat => {
   const m = zeros(n, n);
   for (let i = 0; i < n; i++) m[i][i] = 1;

@@ -155,9 +155,12 @@ export function polyRoots(pIn: readonly number[]): Complex[] {
   if (!Number.isFinite(sigma) || sigma === 0 || !q.every(Number.isFinite)) {
     throw new RangeError('polynomial coefficients span too wide a range to factor');
   }
-  const m = Matrix.zeros(n, n);
-  for (let j = 0; j < n; j++) m.set(0, j, -q[j + 1]);
-  for (let i = 1; i < n; i++) m.set(i, i - 1, 1);
+  const m: number[][] = [];
+  for (let i = 0; i < n; i++) {
+    const row: number[] = [];
+    for (let j = 0; j < n; j++) row.push(i === 0 ? -q[j + 1] : j === i - 1 ? 1 : 0);
+    m.push(row);
+  }
   let roots: Complex[] = eigenvaluesOf(m).map((r) => cx(r.re * sigma, r.im * sigma));
   roots = roots.map((r, i) => {
     let sep = Infinity;
@@ -172,14 +175,15 @@ export function polyRoots(pIn: readonly number[]): Complex[] {
 /** Eigenvalues of a small real matrix (balanced, then ml-matrix's Hessenberg–QR), conjugates exact. */
 export function eigenvalues(rows: number[][]): Complex[] {
   if (rows.length === 0) return [];
-  return enforceConjugates(eigenvaluesOf(new Matrix(rows)));
+  return enforceConjugates(eigenvaluesOf(rows.map((r) => r.slice())));
 }
 
-function eigenvaluesOf(m: Matrix): Complex[] {
+/** Eigenvalues of a square matrix given as rows (balanced in place first). */
+function eigenvaluesOf(m: number[][]): Complex[] {
   // The Hessenberg–QR iteration has no iteration cap: never hand it a non-finite entry.
-  for (let i = 0; i < m.rows; i++) for (let j = 0; j < m.columns; j++) if (!Number.isFinite(m.get(i, j))) throw new RangeError('non-finite matrix entry');
+  for (let i = 0; i < m.length; i++) for (let j = 0; j < m[i].length; j++) if (!Number.isFinite(m[i][j])) throw new RangeError('non-finite matrix entry');
   balance(m);
-  const evd = new EigenvalueDecomposition(m, { assumeSymmetric: false });
+  const evd = new EigenvalueDecomposition(new Matrix(m), { assumeSymmetric: false });
   const im = evd.imaginaryEigenvalues;
   return evd.realEigenvalues.map((r, i) => cx(r, im[i]));
 }
@@ -223,8 +227,8 @@ function enforceConjugates(roots: Complex[]): Complex[] {
 }
 
 /** Parlett–Reinsch diagonal balancing by powers of two (EISPACK balanc; in place, exact similarity). */
-function balance(m: Matrix): void {
-  const n = m.rows;
+function balance(m: number[][]): void {
+  const n = m.length;
   let noconv = true;
   for (let iter = 0; iter < 30 && noconv; iter++) {
     noconv = false;
@@ -233,8 +237,8 @@ function balance(m: Matrix): void {
       let r = 0;
       for (let j = 0; j < n; j++) {
         if (j === i) continue;
-        c += Math.abs(m.get(j, i));
-        r += Math.abs(m.get(i, j));
+        c += Math.abs(m[j][i]);
+        r += Math.abs(m[i][j]);
       }
       if (c === 0 || r === 0) continue;
       const s = c + r;
@@ -251,8 +255,9 @@ function balance(m: Matrix): void {
       }
       if (Number.isFinite(f) && f > 0 && (c + r) / f < 0.95 * s) {
         noconv = true;
-        for (let j = 0; j < n; j++) m.set(i, j, m.get(i, j) / f);
-        for (let j = 0; j < n; j++) m.set(j, i, m.get(j, i) * f);
+        const mi = m[i];
+        for (let j = 0; j < n; j++) mi[j] /= f;
+        for (let j = 0; j < n; j++) m[j][i] *= f;
       }
     }
   }

@@ -9,6 +9,7 @@ import type { AppContext } from './context';
 import { OpenApiRegistry } from './openapi';
 import { createCsrf, createPassport, createSessionMiddleware } from './auth/session';
 import { errorHandler, notFoundApi } from './http/errors';
+import { serverTiming } from './http/timing';
 import { authRoutes } from './routes/auth';
 import { memberRoutes } from './routes/members';
 import { apiRoutes } from './routes';
@@ -37,6 +38,7 @@ export function createApp(opts: CreateAppOptions): { app: Express; close: () => 
   // ETag is wasted work; static files get their own ETags from express.static
   app.set('etag', false);
   if (config.TRUST_PROXY) app.set('trust proxy', config.TRUST_PROXY);
+  app.use(serverTiming);
 
   app.use(
     helmet({

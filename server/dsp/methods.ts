@@ -152,6 +152,7 @@ export function zohDiscretize(cont: Zpk, periodSec: number): DiscreteResult {
   const num = asc.reverse();
   const trimmed = trimLeading(num);
   const zeros = zohZeros(ss, phi, gamma, phiMinusI) ?? (trimmed.length > 1 ? polyRoots(trimmed) : []);
+  refineSmallestZero(zeros, cont, T, trimmed[0]);
   // s = 0 → z = 1 exactly: a continuous zero at the origin stays a discrete zero at 1
   // (step invariance: H_d(1) = H(0) = 0).
   const originZeros = cont.zeros.filter((z) => z.re === 0 && z.im === 0).length;
@@ -195,7 +196,12 @@ function zohZeros(ss: StateSpace, phi: number[][], gamma: number[], phiMinusI: n
   } else {
     const cg = ss.c.reduce((acc, v, i) => acc + v * gamma[i], 0);
     const scale = Math.sqrt(ss.c.reduce((a, v) => a + v * v, 0) * gamma.reduce((a, v) => a + v * v, 0));
-    if (!(Math.abs(cg) > 1e-9 * scale)) return null;
+    // CΓ ≈ C·A^{r−1}B·T^r/r! for a continuous relative degree r: small at high rates but
+    // nonzero (a sampled system has discrete relative degree one), and the zero dynamics
+    // below stay well scaled. Only an exact zero (or a value at rounding level of the
+    // products) falls back to the numerator's roots.
+    const bound = ss.c.reduce((acc, v, i) => acc + Math.abs(v * gamma[i]), 0) * 64 * Number.EPSILON;
+    if (!(Math.abs(cg) > bound) || !(scale > 0)) return null;
     const cphi = ss.c.map((_, j) => ss.c.reduce((acc, v, k) => acc + v * phi[k][j], 0));
     m = phiMinusI.map((row, i) => row.map((v, j) => v - (gamma[i] * cphi[j]) / cg));
     dropOne = true;
@@ -209,6 +215,35 @@ function zohZeros(ss: StateSpace, phi: number[][], gamma: number[], phiMinusI: n
     w.splice(best, 1);
   }
   return w.map((v) => cx(1 + v.re, v.im));
+}
+
+/**
+ * The zero nearest z = 1, when it is real and isolated, from the exact DC constraint instead
+ * of the eigenvalue: step invariance gives N(1) = K·Π(1 − zᵢ) = H(0)·Π(1 − e^{pⱼT}), so with
+ * wᵢ = zᵢ − 1 and eⱼ = expm1(pⱼT): Π(−wᵢ) = H(0)·Π(−eⱼ)/K, all factors in product form.
+ * An eigenvalue far below the norm of its matrix carries an absolute error (ε·‖Φ − I‖), which
+ * can be most of a w ~ 1e-13 (slow zeros with a direct feedthrough); the quotient of the
+ * constraint by the other, larger zeros has their relative accuracy. (The same step as taking
+ * the small root of a quadratic as c/(a·x_large).) Left alone with a root at s = 0.
+ */
+function refineSmallestZero(zeros: Complex[], cont: Zpk, T: number, lead: number): void {
+  if (zeros.length === 0 || !(lead !== 0) || !Number.isFinite(lead)) return;
+  if (cont.poles.some((p) => p.re === 0 && p.im === 0) || cont.zeros.some((z) => z.re === 0 && z.im === 0)) return;
+  const w = zeros.map((z) => cx(z.re - 1, z.im));
+  let k = 0;
+  w.forEach((v, i) => {
+    if (abs(v) < abs(w[k])) k = i;
+  });
+  if (w[k].im !== 0) return;
+  const next = Math.min(...w.filter((_, i) => i !== k).map(abs));
+  if (!(abs(w[k]) <= 1e-2 * next)) return;
+  // P = H(0)·Π(−eⱼ)/K / Π_{i≠k}(−wᵢ), accumulated as a complex product (pairs give a real result)
+  let acc = cx(evalZpk(cont, cx(0)).re / lead);
+  for (const p of cont.poles) acc = mul(acc, scale(expm1(scale(p, T)), -1));
+  for (let i = 0; i < w.length; i++) if (i !== k) acc = div(acc, scale(w[i], -1));
+  const wk = -acc.re;
+  if (!Number.isFinite(wk) || !(Math.abs(wk - w[k].re) <= 0.5 * Math.abs(w[k].re))) return;
+  zeros[k] = cx(1 + wk);
 }
 
 /** T and the bilinear constant for a method of the Tustin family. */

@@ -3,48 +3,26 @@
  * Bode plot, the pole–zero map and the drift table computed by the real compute API, save,
  * reopen (also after a reload), save a change as version 2, open version 1 read-only.
  */
-import type { Page } from 'playwright-core';
-import { DEMO_PASSWORD } from '../../server/seed';
-import { launchBrowser, screenshot, VIEWPORTS, type TestBrowser } from '../helpers/browser';
-import { startTestServer } from '../helpers/test-server';
+import { screenshot, useAppInBrowser, VIEWPORTS } from '../helpers/browser';
 
 jest.setTimeout(180_000);
 
-let server: Awaited<ReturnType<typeof startTestServer>>;
-let browser: TestBrowser;
-
-beforeAll(async () => {
-  server = await startTestServer();
-  browser = await launchBrowser();
-});
-beforeEach(async () => {
-  await browser.context.clearCookies();
-});
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
-
-async function signIn(page: Page, email: string) {
-  await page.goto(`${server.baseUrl}/sign-in`);
-  await page.getByTestId('signin-email').fill(email);
-  await page.getByTestId('signin-password').fill(DEMO_PASSWORD);
-  await page.getByTestId('signin-submit').click();
-  await page.getByTestId('current-role').waitFor();
-}
+const t = useAppInBrowser();
+const signIn = (page: Parameters<typeof t.signIn>[0], email: string) => t.signIn(page, email);
+const expectText = t.expectText;
 
 describe.each([
   ['phone', VIEWPORTS.phone],
   ['wide', VIEWPORTS.wide],
 ] as const)('design editor at %s width', (label, viewport) => {
   it('enters a lead, shows plots and drift, saves, reopens and versions it', async () => {
-    const { page, errors } = await browser.newPage(viewport);
+    const { page, errors } = await t.browser.newPage(viewport);
     const computeAnswers: number[] = [];
     page.on('response', (r) => {
       if (r.url().endsWith('/api/v1/discretize')) computeAnswers.push(r.status());
     });
     await signIn(page, 'engineer@example.com');
-    await page.goto(`${server.baseUrl}/designs`);
+    await page.goto(`${t.server.baseUrl}/designs`);
     await page.getByTestId('design-new').click();
     await page.getByTestId('lead-gain').waitFor();
     await page.getByTestId('lead-gain').fill('18');
@@ -93,20 +71,9 @@ describe.each([
     await page.getByTestId('impl-screen').waitFor();
 
     // the list shows the design
-    await page.goto(`${server.baseUrl}/designs`);
+    await page.goto(`${t.server.baseUrl}/designs`);
     await page.getByText(name).first().waitFor();
     expect(errors).toEqual([]);
     await page.close();
   });
 });
-
-async function expectText(page: Page, testId: string, re: RegExp) {
-  const deadline = Date.now() + 10_000;
-  let last = '';
-  while (Date.now() < deadline) {
-    last = await page.getByTestId(testId).innerText();
-    if (re.test(last)) return;
-    await page.waitForTimeout(100);
-  }
-  throw new Error(`${testId} never matched ${re}: "${last}"`);
-}

@@ -3,55 +3,22 @@
  * engineer enters a plant, places the closed-loop poles for a target ζ, ωn, uses the lead and
  * sees the drift table; then enters an op-amp network and sees H(s) echoed by the compute API.
  */
-import type { Page } from 'playwright-core';
-import { DEMO_PASSWORD } from '../../server/seed';
-import { launchBrowser, screenshot, VIEWPORTS, type TestBrowser } from '../helpers/browser';
-import { startTestServer } from '../helpers/test-server';
+import { screenshot, useAppInBrowser, VIEWPORTS } from '../helpers/browser';
 
 jest.setTimeout(180_000);
 
-let server: Awaited<ReturnType<typeof startTestServer>>;
-let browser: TestBrowser;
-
-beforeAll(async () => {
-  server = await startTestServer();
-  browser = await launchBrowser();
-});
-beforeEach(async () => {
-  await browser.context.clearCookies();
-});
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
-
-async function signIn(page: Page, email: string) {
-  await page.goto(`${server.baseUrl}/sign-in`);
-  await page.getByTestId('signin-email').fill(email);
-  await page.getByTestId('signin-password').fill(DEMO_PASSWORD);
-  await page.getByTestId('signin-submit').click();
-  await page.getByTestId('current-role').waitFor();
-}
-
-async function expectText(page: Page, testId: string, re: RegExp) {
-  const deadline = Date.now() + 10_000;
-  let last = '';
-  while (Date.now() < deadline) {
-    last = await page.getByTestId(testId).innerText();
-    if (re.test(last)) return;
-    await page.waitForTimeout(100);
-  }
-  throw new Error(`${testId} never matched ${re}: "${last}"`);
-}
+const t = useAppInBrowser();
+const signIn = (page: Parameters<typeof t.signIn>[0], email: string) => t.signIn(page, email);
+const expectText = t.expectText;
 
 describe.each([
   ['phone', VIEWPORTS.phone],
   ['wide', VIEWPORTS.wide],
 ] as const)('pole placement and op-amp entry at %s width', (label, viewport) => {
   it('places a lead for ζ, ωn, uses it, and enters an op-amp network', async () => {
-    const { page, errors } = await browser.newPage(viewport);
+    const { page, errors } = await t.browser.newPage(viewport);
     await signIn(page, 'engineer@example.com');
-    await page.goto(`${server.baseUrl}/designs`);
+    await page.goto(`${t.server.baseUrl}/designs`);
     await page.getByTestId('design-new').click();
     await page.getByTestId('lead-gain').waitFor();
 

@@ -65,3 +65,57 @@ export async function screenshot(page: Page, name: string): Promise<string> {
   await page.screenshot({ path: file, fullPage: true });
   return file;
 }
+
+/**
+ * The usual frame of a browser test file: the real app on a fresh demo-seeded database and
+ * one Chromium, started before the file's tests, signed out before each, stopped after.
+ */
+export function useAppInBrowser(): {
+  readonly server: { baseUrl: string; db: import('../../server/db/knex').Db; stop(): Promise<void> };
+  readonly browser: TestBrowser;
+  /** signs in through the sign-in screen and waits for the shell */
+  signIn(page: Page, email: string, password?: string): Promise<void>;
+  /** waits until the element's text matches (up to 10 s) */
+  expectText(page: Page, testId: string, re: RegExp): Promise<void>;
+} {
+  let server: Awaited<ReturnType<typeof import('./test-server').startTestServer>> | undefined;
+  let browser: TestBrowser | undefined;
+  beforeAll(async () => {
+    const { startTestServer } = await import('./test-server');
+    server = await startTestServer();
+    browser = await launchBrowser();
+  });
+  beforeEach(async () => {
+    await browser?.context.clearCookies();
+  });
+  afterAll(async () => {
+    await browser?.close();
+    await server?.stop();
+  });
+  return {
+    get server() {
+      return server!;
+    },
+    get browser() {
+      return browser!;
+    },
+    async signIn(page, email, password) {
+      const { DEMO_PASSWORD } = await import('../../server/seed');
+      await page.goto(`${server!.baseUrl}/sign-in`);
+      await page.getByTestId('signin-email').fill(email);
+      await page.getByTestId('signin-password').fill(password ?? DEMO_PASSWORD);
+      await page.getByTestId('signin-submit').click();
+      await page.getByTestId('current-role').waitFor();
+    },
+    async expectText(page, testId, re) {
+      const deadline = Date.now() + 10_000;
+      let last = '';
+      while (Date.now() < deadline) {
+        last = await page.getByTestId(testId).innerText();
+        if (re.test(last)) return;
+        await page.waitForTimeout(100);
+      }
+      throw new Error(`${testId} never matched ${re}: "${last}"`);
+    },
+  };
+}

@@ -7,6 +7,7 @@
  *  - bundle generation time (median, p95), when the code generator is present.
  */
 import fs from 'node:fs';
+import os from 'node:os';
 import path from 'node:path';
 import { performance } from 'node:perf_hooks';
 import { spawn } from 'node:child_process';
@@ -88,7 +89,7 @@ async function main() {
       if (a) whole.push(Number(a[1]));
     }
     const w = summary(whole);
-    rows.push(['discretize: server time per request (Server-Timing app: arrival to headers)', w.median.toFixed(3), w.p95.toFixed(3), `ms, n=${w.n}`]);
+    rows.push(['discretize: server time per request (Server-Timing app: arrival to headers)', w.median.toFixed(3), w.p95.toFixed(3), `ms, n=${w.n}, target median ≤ 2`]);
     const c = summary(compute);
     const rt = summary(roundTrip);
     rows.push(['  of which computation (Server-Timing)', c.median.toFixed(3), c.p95.toFixed(3), `ms, n=${c.n}`]);
@@ -105,7 +106,7 @@ async function main() {
     await exited;
 
     const b = await benchBundle();
-    rows.push(['bundle generation (render + zip)', b.median.toFixed(3), b.p95.toFixed(3), `ms, n=${b.n}`]);
+    rows.push(['bundle generation (render + zip)', b.median.toFixed(3), b.p95.toFixed(3), `ms, n=${b.n}, target median ≤ 30`]);
   } finally {
     await db.destroy();
     await pdb.stop();
@@ -114,7 +115,7 @@ async function main() {
   const head: [string, string, string, string] = ['measure', 'median', 'p95', 'note'];
   const widths = head.map((h, i) => Math.max(h.length, ...rows.map((r) => r[i]!.length)));
   const line = (r: string[]) => `| ${r.map((x, i) => x.padEnd(widths[i]!)).join(' | ')} |`;
-  console.log(`\nSamplewright benchmark (${new Date().toISOString()}, node ${process.version})\n`);
+  console.log(`\nSamplewright benchmark (${new Date().toISOString()}, node ${process.version}, load ${os.loadavg().map((l) => l.toFixed(2)).join(' ')})\n`);
   console.log(line(head));
   console.log(`|${widths.map((w) => '-'.repeat(w + 2)).join('|')}|`);
   for (const r of rows) console.log(line(r));

@@ -43,6 +43,10 @@ export class KnexRateLimitStore implements Store {
       [k, reset],
     );
     const row = await this.db('rate_limit_hits').where({ key: k }).first();
+    // now and then, sweep windows that ended long ago (addresses that never came back)
+    if (Math.random() < 0.01) {
+      await this.db('rate_limit_hits').where('reset_at', '<', new Date(Date.now() - 10 * this.windowMs)).delete();
+    }
     return { totalHits: Number(row.hits), resetTime: new Date(row.reset_at) };
   }
 

@@ -2,6 +2,7 @@ import type { CompensatorInput } from '../../schemas/compensator';
 import { MAX_LEAD_ANGLE_DEG, type LeadPlacementRequest, type LeadPlacementResponse } from '../../schemas/lead-placement';
 import { evalZpk, inputToZpk, polyFromRoots, polyMul, polyRoots, polyval, type Complex } from '../dsp';
 import { polyAdd } from '../dsp/poly';
+import { DspInputError } from '../dsp/errors';
 
 /**
  * Lead placement by the root-locus conditions. Pure: no HTTP, no database.
@@ -23,12 +24,11 @@ import { polyAdd } from '../dsp/poly';
  */
 
 /** A refusal naming the request fields it is about ("zeta", "wn", "zero", "plant"); the route answers 400. */
-export class PlacementInputError extends Error {
-  readonly issues: { path: string; message: string }[];
+/** Bad input the request schema cannot see; answered as 400 like every compute input error. */
+export class PlacementInputError extends DspInputError {
   constructor(message: string, issues: { path: string; message: string }[]) {
-    super(message);
+    super(message, issues);
     this.name = 'PlacementInputError';
-    this.issues = issues;
   }
 }
 

@@ -1,5 +1,6 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ZodError, type z } from 'zod';
+import { DspInputError } from '../dsp/errors';
 
 export interface FieldIssue {
   path: string;
@@ -49,6 +50,14 @@ export function errorHandler(log: (msg: string, err: unknown) => void): ErrorReq
     let issues: FieldIssue[] | undefined;
     if (err instanceof HttpError) {
       ({ status, message, issues } = err);
+    } else if (err instanceof DspInputError) {
+      // bad input found by the computation itself (roots beyond Nyquist in tf form, an
+      // infeasible placement, missing implementation settings...)
+      status = 400;
+      message = err.message;
+      issues = err.issues;
+      // a refusal naming no field may hide a numerical failure of ours: keep a trace of it
+      if (issues.some((i) => i.path === '')) log('computation refused a request naming no field', issues);
     } else if (err instanceof ZodError) {
       status = 400;
       message = 'Invalid request';

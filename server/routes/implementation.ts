@@ -1,14 +1,12 @@
 import { Router, type Request } from 'express';
-import { ZodError } from 'zod';
 import {
   bundleFilesSchema, bundleResponseSchema, implementRequestSchema, implementResponseSchema,
 } from '../../schemas/implementation-api';
 import type { DesignSpec } from '../../schemas/design';
 import type { AppContext } from '../context';
 import { ANY_MEMBER, WRITERS, requireRole, requireUser } from '../auth/roles';
-import { badRequest, notFound, parseOr400, zodIssues } from '../http/errors';
+import { notFound, parseOr400 } from '../http/errors';
 import { idParam } from '../http/params';
-import { DspInputError } from '../dsp';
 import { analyzeImplementation } from '../fixed-point';
 import { buildBundle, GENERATOR_VERSION } from '../codegen';
 import { bundleOfVersion as buildVersionBundle, discreteOf } from '../codegen/from-spec';
@@ -16,17 +14,6 @@ import { bundleFiles, bundleOfVersion, bundleZip, recordDownload, storeBundle, v
 import { audit } from '../data/users';
 
 const VERSION = '/api/v1/workspaces/:workspaceId/designs/:designId/versions/:number';
-
-/** Maps the computation's own input errors to 400 with field paths; everything else passes on. */
-async function as400<T>(f: () => Promise<T> | T, prefix: string[] = []): Promise<T> {
-  try {
-    return await f();
-  } catch (e) {
-    if (e instanceof DspInputError) throw badRequest(e.message, e.issues);
-    if (e instanceof ZodError) throw badRequest('Invalid implementation settings', zodIssues(e, prefix));
-    throw e;
-  }
-}
 
 export function implementationRoutes(ctx: AppContext): Router {
   const { db, registry } = ctx;
@@ -38,16 +25,15 @@ export function implementationRoutes(ctx: AppContext): Router {
     summary: 'Preview a fixed-point (or float32) implementation: coefficients, quantized roots, warnings, advice, and the C files' });
   r.post('/implement', requireUser, async (req, res) => {
     const body = parseOr400(implementRequestSchema, req.body);
-    const out = await as400(async () => {
-      const discrete = discreteOf(body);
-      const analysis = analyzeImplementation(discrete, body.settings, body.tolerances ?? {});
-      const bundle = await buildBundle({
-        designName: '(preview)', versionNumber: 0, method: body.method, sampleRateHz: body.sampleRateHz,
-        compensatorAsEntered: body.compensator, discrete, settings: body.settings,
-      });
-      return { analysis, files: bundle.files };
-    }, ['settings']);
-    res.json(out);
+    // settings were parsed by the request schema; input the schema cannot see (e.g. a
+    // tf-form root beyond Nyquist) is a DspInputError, answered 400 by the error middleware
+    const discrete = discreteOf(body);
+    const analysis = analyzeImplementation(discrete, body.settings, body.tolerances ?? {});
+    const bundle = await buildBundle({
+      designName: '(preview)', versionNumber: 0, method: body.method, sampleRateHz: body.sampleRateHz,
+      compensatorAsEntered: body.compensator, discrete, settings: body.settings,
+    });
+    res.json({ analysis, files: bundle.files });
   });
 
   const router = Router({ mergeParams: true });
@@ -72,7 +58,7 @@ export function implementationRoutes(ctx: AppContext): Router {
     const existing = await bundleOfVersion(db, v.id);
     if (existing) return void res.status(200).json({ bundle: existing });
     const spec = (typeof v.spec === 'string' ? JSON.parse(v.spec) : v.spec) as DesignSpec;
-    const b = await as400(() => buildVersionBundle(v.designName, v.number, spec), ['spec', 'implementation']);
+    const b = await buildVersionBundle(v.designName, v.number, spec); // settings checked, 400 at spec.implementation
     const { bundle, created } = await storeBundle(db, v.id, req.user!.id, { ...b, generatorVersion: GENERATOR_VERSION });
     if (created) {
       await audit(db, { workspaceId: req.workspace!.id, userId: req.user!.id, action: 'bundle.generate', subject: b.fileName, detail: { sha256: b.sha256 } });

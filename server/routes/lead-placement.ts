@@ -2,8 +2,8 @@ import { Router } from 'express';
 import { leadPlacementRequestSchema, leadPlacementResponseSchema } from '../../schemas/lead-placement';
 import type { AppContext } from '../context';
 import { requireUser } from '../auth/roles';
-import { badRequest, parseOr400 } from '../http/errors';
-import { PlacementInputError, placeLead } from '../design/lead-placement';
+import { parseOr400 } from '../http/errors';
+import { placeLead } from '../design/lead-placement';
 
 /** Stateless design aid: the lead that puts closed-loop poles at a target ζ, ωn (server/design/lead-placement.ts). */
 export function leadPlacementRoutes(ctx: AppContext): Router {
@@ -15,12 +15,7 @@ export function leadPlacementRoutes(ctx: AppContext): Router {
   });
   r.post('/lead-placement', requireUser, (req, res) => {
     const body = parseOr400(leadPlacementRequestSchema, req.body);
-    try {
-      res.json(placeLead(body));
-    } catch (e) {
-      if (e instanceof PlacementInputError) throw badRequest(e.message, e.issues);
-      throw e;
-    }
+    res.json(placeLead(body));
   });
   return r;
 }

@@ -1,9 +1,12 @@
 /**
  * `npm run bench`: figures, not tests. Starts the real app on a private MariaDB under
  * .bench-data/, signs in, and measures
- *  - POST /api/v1/discretize with all five methods, a plant and 400 response points:
- *    server compute time (Server-Timing) and loopback round trip, median and p95;
- *  - requests per second of the same request under a loopback load (autocannon);
+ *  - POST /api/v1/discretize with all five methods, a plant and 400 response points, once
+ *    with the series packed (what the web editor asks for) and once as JSON numbers: the
+ *    server time per request from arrival to headers (Server-Timing app: middleware, session,
+ *    validation, computation, serialisation), the computation alone, and the loopback round
+ *    trip, median and p95;
+ *  - requests per second of each under a loopback load (autocannon, 8 connections);
  *  - bundle generation time (median, p95), when the code generator is present.
  */
 import fs from 'node:fs';
@@ -69,37 +72,41 @@ async function main() {
     const headers = {
       'Content-Type': 'application/json', cookie: login.headers.get('set-cookie')!.split(';')[0]!, 'X-CSRF-Token': csrfToken,
     };
-    const body = JSON.stringify(REQUEST);
-
-    const compute: number[] = [];
-    const roundTrip: number[] = [];
-    const whole: number[] = [];
-    for (let i = 0; i < 600; i++) {
-      const t0 = performance.now();
-      const res = await fetch(`${base}/api/v1/discretize`, { method: 'POST', headers, body });
-      await res.arrayBuffer();
-      const t1 = performance.now();
-      if (res.status !== 200) throw new Error(`discretize answered ${res.status}`);
-      if (i < 100) continue; // warm-up
-      roundTrip.push(t1 - t0);
-      const timing = res.headers.get('server-timing') ?? '';
-      const m = /compute;dur=([\d.]+)/.exec(timing);
-      if (m) compute.push(Number(m[1]));
-      const a = /app;dur=([\d.]+)/.exec(timing);
-      if (a) whole.push(Number(a[1]));
+    // the same request twice: series packed, as the web editor asks for them, and as plain JSON numbers
+    for (const format of ['packed', 'numbers'] as const) {
+      const body = JSON.stringify({ ...REQUEST, seriesFormat: format });
+      const label = format === 'packed' ? 'series packed (the editor\'s request)' : 'series as JSON numbers';
+      const compute: number[] = [];
+      const roundTrip: number[] = [];
+      const whole: number[] = [];
+      let bytes = 0;
+      for (let i = 0; i < 1100; i++) {
+        const t0 = performance.now();
+        const res = await fetch(`${base}/api/v1/discretize`, { method: 'POST', headers, body });
+        const buf = await res.arrayBuffer();
+        const t1 = performance.now();
+        if (res.status !== 200) throw new Error(`discretize answered ${res.status}`);
+        if (i < 100) continue; // warm-up
+        bytes = buf.byteLength;
+        roundTrip.push(t1 - t0);
+        const timing = res.headers.get('server-timing') ?? '';
+        const m = /compute;dur=([\d.]+)/.exec(timing);
+        if (m) compute.push(Number(m[1]));
+        const a = /app;dur=([\d.]+)/.exec(timing);
+        if (a) whole.push(Number(a[1]));
+      }
+      const w = summary(whole);
+      const c = summary(compute);
+      const rt = summary(roundTrip);
+      rows.push([`discretize, ${label}: server time per request (arrival to headers)`, w.median.toFixed(3), w.p95.toFixed(3), `ms, n=${w.n}, target median ≤ 2`]);
+      rows.push(['  of which computation', c.median.toFixed(3), c.p95.toFixed(3), `ms, n=${c.n}`]);
+      rows.push(['  loopback round trip, one client', rt.median.toFixed(3), rt.p95.toFixed(3), `ms, answer ${(bytes / 1024).toFixed(0)} KiB`]);
+      const load = await autocannon({
+        url: `${base}/api/v1/discretize`, method: 'POST', headers, body, connections: 8, duration: 8,
+      });
+      rows.push(['  loopback load, 8 connections, 8 s', `${load.requests.average.toFixed(0)} req/s`,
+        `p97.5 ${load.latency.p97_5} ms`, `non-2xx ${load.non2xx}, errors ${load.errors}`]);
     }
-    const w = summary(whole);
-    rows.push(['discretize: server time per request (Server-Timing app: arrival to headers)', w.median.toFixed(3), w.p95.toFixed(3), `ms, n=${w.n}, target median ≤ 2`]);
-    const c = summary(compute);
-    const rt = summary(roundTrip);
-    rows.push(['  of which computation (Server-Timing)', c.median.toFixed(3), c.p95.toFixed(3), `ms, n=${c.n}`]);
-    rows.push(['discretize: loopback round trip, one client', rt.median.toFixed(3), rt.p95.toFixed(3), `ms, n=${rt.n}`]);
-
-    const load = await autocannon({
-      url: `${base}/api/v1/discretize`, method: 'POST', headers, body, connections: 8, duration: 8,
-    });
-    rows.push(['discretize: loopback load, 8 connections, 8 s', `${load.requests.average.toFixed(0)} req/s`,
-      `p97.5 ${load.latency.p97_5} ms`, `non-2xx ${load.non2xx}, errors ${load.errors}`]);
 
     const exited = new Promise((r) => child.once('exit', r));
     child.kill('SIGTERM');

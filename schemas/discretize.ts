@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { compensatorSchema, rootIm, rootRe, type CompensatorInput } from './compensator';
+import { seriesFormatSchema, seriesSchema } from './series';
 
 /**
  * The compute API `POST /api/v1/discretize` (DESIGN.md "The compute API"): request and
@@ -75,6 +76,9 @@ export const discretizeRequestSchema = z
       .positive('bandHz must be greater than 0')
       .optional()
       .describe('upper edge of the band for the largest response errors, Hz; default fs/8 (a quarter of Nyquist)'),
+    seriesFormat: seriesFormatSchema
+      .default('numbers')
+      .describe('how the long series of the answer are written: "numbers" (JSON arrays, default) or "packed" (float64 little-endian in base64, bit for bit the same values)'),
   })
   .superRefine((req, ctx) => {
     const fs = req.sampleRateHz;
@@ -148,8 +152,8 @@ export const rootInfoSchema = z.object({
 export type RootInfo = z.infer<typeof rootInfoSchema>;
 
 export const frequencyResponseSchema = z.object({
-  magnitudeDb: z.array(z.number()).describe('20·log10|H|, dB, one per frequencyHz point (floored at −400 dB)'),
-  phaseDeg: z.array(z.number()).describe('unwrapped phase, degrees, one per frequencyHz point'),
+  magnitudeDb: seriesSchema.describe('20·log10|H|, dB, one per frequencyHz point (floored at −400 dB)'),
+  phaseDeg: seriesSchema.describe('unwrapped phase, degrees, one per frequencyHz point'),
 });
 
 export const marginsSchema = z.object({
@@ -161,8 +165,8 @@ export const marginsSchema = z.object({
 export type Margins = z.infer<typeof marginsSchema>;
 
 export const stepResponseSchema = z.object({
-  timeSec: z.array(z.number()).describe('sample times, s'),
-  output: z.array(z.number()).describe('closed-loop output for a unit step reference'),
+  timeSec: seriesSchema.describe('sample times, s'),
+  output: seriesSchema.describe('closed-loop output for a unit step reference'),
   finalValue: nullableNum('closed-loop DC gain (null when the loop is not stable)'),
   overshootPercent: nullableNum('peak overshoot above the final value, percent'),
   riseTimeSec: nullableNum('10–90 % rise time, s'),
@@ -226,7 +230,7 @@ export const discretizeResponseSchema = z.object({
   bandHz: num('upper band edge used for the largest errors, Hz'),
   prewarpHz: nullableNum('ω₀/(2π) given or defaulted, Hz (null when undefined)'),
   delaySamples: z.union([z.literal(0), z.literal(1)]),
-  frequencyHz: z.array(z.number()).describe('log-spaced frequency grid up to just below Nyquist, Hz'),
+  frequencyHz: seriesSchema.describe('log-spaced frequency grid up to just below Nyquist, Hz'),
   continuous: continuousSchema.describe('the compensator as parsed, H(s)'),
   methods: z
     .object({
@@ -254,4 +258,7 @@ export const discretizeResponseSchema = z.object({
   continuousLoop: loopSchema.optional().describe('with a plant: the continuous loop figures'),
   warnings: z.array(warningSchema),
 });
-export type DiscretizeResponse = z.infer<typeof discretizeResponseSchema>;
+/** The answer as computed (every series as numbers). */
+export type DiscretizeResponse = z.output<typeof discretizeResponseSchema>;
+/** The answer as written on the wire (series as numbers or packed, per `seriesFormat`). */
+export type DiscretizeResponseWire = z.input<typeof discretizeResponseSchema>;

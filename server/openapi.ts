@@ -11,6 +11,9 @@ export interface RouteDoc {
   body?: z.ZodType;
   query?: z.ZodType;
   response?: z.ZodType;
+  /** which side of `response` is on the wire: 'output' (default), or 'input' where parsing
+   *  the answer transforms it (e.g. packed series that parse to numbers) */
+  responseIo?: 'input' | 'output';
   /** status of a successful answer, default 200 */
   status?: number;
   /** content type of a non-JSON answer, e.g. application/zip */
@@ -43,7 +46,7 @@ export class OpenApiRegistry {
         [ok]: r.produces
           ? { description: 'OK', content: { [r.produces]: { schema: { type: 'string', format: 'binary' } } } }
           : r.response
-            ? { description: 'OK', content: { 'application/json': { schema: toSchema(r.response, 'output') } } }
+            ? { description: 'OK', content: { 'application/json': { schema: toSchema(r.response, r.responseIo ?? 'output') } } }
             : { description: 'OK' },
         '4XX': { description: 'Bad request, not signed in, forbidden, not found, conflict, too large or too many',
           content: { 'application/json': { schema: toSchema(apiErrorSchema, 'output') } } },

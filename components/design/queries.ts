@@ -128,7 +128,10 @@ export function useDiscretize(body: DiscretizeRequestBody | null) {
   const settled = settledKey ? (JSON.parse(settledKey) as DiscretizeRequestBody) : null;
   return useQuery({
     queryKey: settled ? discretizeKeys.request(settled) : [...discretizeKeys.all, 'idle'],
-    queryFn: ({ signal }) => apiFetch('/api/v1/discretize', { method: 'POST', body: settled, schema: discretizeResponseSchema, signal }),
+    // series packed (bit-exact float64, ~40 % smaller, far cheaper for the server to write);
+    // the shared schema parses them back to numbers
+    queryFn: ({ signal }) =>
+      apiFetch('/api/v1/discretize', { method: 'POST', body: { ...settled, seriesFormat: 'packed' }, schema: discretizeResponseSchema, signal }),
     enabled: settled !== null,
     placeholderData: keepPreviousData,
     staleTime: COMPUTE_STALE_MS,

@@ -4,6 +4,7 @@ import { discretizeRequestSchema, discretizeResponseSchema } from '../../schemas
 import type { AppContext } from '../context';
 import { requireUser } from '../auth/roles';
 import { parseOr400 } from '../http/errors';
+import { packAnswer } from '../http/packed-series';
 import { runDiscretize } from '../dsp';
 
 /** The stateless compute API of DESIGN.md: a continuous compensator in, discrete implementations out. */
@@ -11,7 +12,7 @@ export function discretizeRoutes(ctx: AppContext): Router {
   const r = Router();
   ctx.registry.add({
     method: 'post', path: '/api/v1/discretize', tag: 'compute', auth: 'session-or-token',
-    body: discretizeRequestSchema, response: discretizeResponseSchema,
+    body: discretizeRequestSchema, response: discretizeResponseSchema, responseIo: 'input',
     summary: 'Discretize a continuous compensator by up to five methods and analyse the drift (and the loop, with a plant)',
   });
   r.post('/discretize', requireUser, (req, res) => {
@@ -20,7 +21,7 @@ export function discretizeRoutes(ctx: AppContext): Router {
     const out = runDiscretize(body);
     // the compute time alone, for clients and for `npm run bench`
     res.setHeader('Server-Timing', `compute;dur=${(performance.now() - t0).toFixed(3)}`);
-    res.json(out);
+    res.json(body.seriesFormat === 'packed' ? packAnswer(out) : out);
   });
   return r;
 }

@@ -1,5 +1,6 @@
 import request from 'supertest';
 import { makeTestApp, signIn } from '../helpers/test-server';
+import { discretizeResponseSchema } from '../../schemas/discretize';
 
 let t: Awaited<ReturnType<typeof makeTestApp>>;
 let agent: Awaited<ReturnType<typeof signIn>>['agent'];
@@ -61,6 +62,22 @@ describe('POST /api/v1/discretize', () => {
     expect(res.body.methods.zoh.den[1]).toBeCloseTo(-e, 14);
   });
 
+  it('writes the series packed on request, bit for bit the numbers of the plain answer', async () => {
+    const plain = (await post(example).expect(200)).body;
+    const res = await post({ ...example, seriesFormat: 'packed' }).expect(200);
+    const wire = res.body;
+    // on the wire: every long series is packed, coefficients and roots stay numbers
+    for (const series of [wire.frequencyHz, wire.continuous.response.magnitudeDb, wire.methods.zoh.response.phaseDeg,
+      wire.methods.tustin.loop.step.output, wire.continuousLoop.step.timeSec]) {
+      expect(series).toEqual({ encoding: 'float64le-base64', count: expect.any(Number), data: expect.any(String) });
+    }
+    expect(wire.methods.zoh.num).toEqual(plain.methods.zoh.num);
+    expect(wire.frequencyHz.count).toBe(plain.frequencyHz.length);
+    // the shared schema parses both to the same answer (toEqual compares numbers with Object.is)
+    expect(discretizeResponseSchema.parse(wire)).toEqual(discretizeResponseSchema.parse(plain));
+    expect(JSON.stringify(res.body).length).toBeLessThan(0.75 * JSON.stringify(plain).length);
+  });
+
   const bad: [string, unknown, string[]][] = [
     ['a string where a number belongs', { ...example, sampleRateHz: '250' }, ['sampleRateHz']],
     ['a boolean gain', { ...example, compensator: { ...example.compensator, gain: true } }, ['compensator.gain']],
@@ -75,6 +92,7 @@ describe('POST /api/v1/discretize', () => {
     ['prewarp with its default undefined (tf form)', { ...example, prewarpHz: undefined, compensator: { form: 'tf', num: [25, 75], den: [1, 18] } }, ['prewarpHz']],
     ['an unknown field', { ...example, sampleRate: 250 }, ['(body)']],
     ['a missing compensator', { sampleRateHz: 250 }, ['compensator']],
+    ['an unknown series format', { ...example, seriesFormat: 'csv' }, ['seriesFormat']],
   ];
 
   it.each(bad)('answers %s with 400 naming the field, within a second', async (_what, body, paths) => {

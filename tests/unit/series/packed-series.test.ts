@@ -1,0 +1,48 @@
+/**
+ * Packed series (schemas/series.ts, server/http/packed-series.ts): IEEE 754 binary64,
+ * little-endian, in base64 (RFC 4648). The reference bytes are IEEE 754's encodings,
+ * checked with Python's struct.pack('<d', …) and base64.b64encode.
+ */
+import { packSeries } from '../../../server/http/packed-series';
+import { packedSeriesSchema, seriesSchema, unpackSeries } from '../../../schemas/series';
+
+describe('packed series', () => {
+  it('writes IEEE 754 little-endian bytes in base64: [1, −0.5] (0x3FF0…, 0xBFE0…)', () => {
+    // python3 -c "import struct,base64; print(base64.b64encode(struct.pack('<2d', 1, -0.5)).decode())"
+    expect(packSeries([1, -0.5])).toEqual({ encoding: 'float64le-base64', count: 2, data: 'AAAAAAAA8D8AAAAAAADgvw==' });
+  });
+
+  it('keeps every bit: signed zero, subnormals, extremes, values with 17 significant digits', () => {
+    const values = [0, -0, 5e-324, -2.2250738585072014e-308, 1.7976931348623157e308, -1.7976931348623157e308, 1 / 3, Math.PI, -400, 0.1 + 0.2];
+    const back = unpackSeries(packSeries(values));
+    expect(back).toHaveLength(values.length);
+    values.forEach((v, i) => expect(Object.is(back[i], v)).toBe(true));
+  });
+
+  it('keeps a long random series bit for bit (Float64Array in, numbers out)', () => {
+    const f = new Float64Array(2000);
+    const bytes = new Uint8Array(f.buffer);
+    let s = 0x2f6b1d3;
+    for (let i = 0; i < bytes.length; i++) {
+      s = (s * 1103515245 + 12345) >>> 0;
+      bytes[i] = s >>> 24;
+    }
+    // drop NaN patterns (a JSON answer never holds them)
+    for (let i = 0; i < f.length; i++) if (Number.isNaN(f[i])) f[i] = i;
+    const back = unpackSeries(packSeries(f));
+    for (let i = 0; i < f.length; i++) expect(Object.is(back[i], f[i])).toBe(true);
+  });
+
+  it('parses either form to numbers through the shared schema', () => {
+    expect(seriesSchema.parse([1, 2.5])).toEqual([1, 2.5]);
+    expect(seriesSchema.parse(packSeries([1, 2.5]))).toEqual([1, 2.5]);
+    expect(seriesSchema.parse(packSeries([]))).toEqual([]);
+  });
+
+  it('refuses a packed series whose bytes do not hold exactly `count` doubles', () => {
+    const p = packSeries([1, 2, 3]);
+    expect(seriesSchema.safeParse({ ...p, count: 4 }).success).toBe(false);
+    expect(seriesSchema.safeParse({ ...p, data: p.data.slice(0, 20) }).success).toBe(false);
+    expect(packedSeriesSchema.safeParse({ ...p, encoding: 'float32le-base64' }).success).toBe(false);
+  });
+});

@@ -56,11 +56,12 @@ export function createApp(opts: CreateAppOptions): { app: Express; close: () => 
 
   const { middleware: sessionMw, store } = createSessionMiddleware({
     db, secret: opts.sessionSecret, secureCookies: config.HTTPS, cleanupIntervalMs: opts.sessionCleanupMs ?? 0,
+    cacheMs: config.SESSION_CACHE_MS,
   });
   const passport = createPassport(db);
   const csrf = createCsrf();
   const registry = new OpenApiRegistry();
-  const ctx: AppContext = { db, config, registry, passport, csrf, log };
+  const ctx: AppContext = { db, config, registry, passport, csrf, log, sessions: store };
 
   const api = express.Router();
   if (config.DEV_WEB_ORIGIN && config.NODE_ENV === 'development') {

@@ -25,6 +25,8 @@ export const configSchema = z.object({
   HTTPS: bool.default(false).describe('set when served behind TLS: cookies become Secure'),
   TRUST_PROXY: z.coerce.number().int().min(0).max(10).default(0)
     .describe('number of reverse proxies in front (for client addresses in rate limits)'),
+  SESSION_CACHE_MS: z.coerce.number().int().min(0).max(60_000).default(2000)
+    .describe('how long a process reuses a session it read from MariaDB, ms; a sign-out on another process takes effect here at most this much later (0: read on every request)'),
   LOGIN_RATE_LIMIT: z.coerce.number().int().min(1).max(10000).default(10)
     .describe('failed sign-ins allowed per address per minute before 429'),
   BODY_LIMIT_KB: z.coerce.number().int().min(1).max(10240).default(256)

@@ -2,7 +2,7 @@ import type passport from 'passport';
 import type { Config } from './config';
 import type { Db } from './db/knex';
 import type { OpenApiRegistry } from './openapi';
-import type { createCsrf } from './auth/session';
+import type { createCsrf, SessionStore } from './auth/session';
 
 /** What every route module receives from the app factory. */
 export interface AppContext {
@@ -12,4 +12,6 @@ export interface AppContext {
   passport: passport.PassportStatic;
   csrf: ReturnType<typeof createCsrf>;
   log: (msg: string, err?: unknown) => void;
+  /** the session store (routes that end sessions tell its cache) */
+  sessions: Pick<SessionStore, 'forgetUser'>;
 }

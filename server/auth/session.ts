@@ -29,18 +29,58 @@ export interface SessionOptions {
   secureCookies: boolean;
   /** how often expired sessions are swept, ms; 0 disables the timer (tests) */
   cleanupIntervalMs: number;
+  /** how long a session read from the database is reused by this process, ms (0: never) */
+  cacheMs: number;
 }
 
 export const SESSION_COOKIE = 'sw.sid';
 
 /**
- * The Knex session store, with two changes: a failing get, set, touch or destroy reports to
- * its callback only, instead of also leaving an unhandled rejection (which would end the
- * process), and a session is touched
- * in the database at most once a minute per process (every request would otherwise write).
+ * The Knex session store, with three changes:
+ * - a failing get, set, touch or destroy reports to its callback only, instead of also
+ *   leaving an unhandled rejection (which would end the process);
+ * - a session is touched in the database at most once a minute per process (every request
+ *   would otherwise write);
+ * - a session read from the database is reused by this process for `cacheMs` (a database
+ *   round trip per request otherwise costs more than the rest of a small request). Sign-out,
+ *   a password change and every write through this process update the cache at once;
+ *   another process sees a session ended elsewhere at most `cacheMs` later (config key
+ *   SESSION_CACHE_MS; 0 reads the database on every request).
  */
-class SessionStore extends ConnectSessionKnexStore {
+export class SessionStore extends ConnectSessionKnexStore {
   private lastTouch = new Map<string, number>();
+  /** sid → the session as JSON (each hit gets its own copy), its user and when it was read */
+  private recent = new Map<string, { json: string; userId: number | null; readAt: number }>();
+  private readonly cacheMs: number;
+
+  constructor(options: ConstructorParameters<typeof ConnectSessionKnexStore>[0] & { cacheMs: number }) {
+    const { cacheMs, ...rest } = options;
+    super(rest);
+    this.cacheMs = cacheMs;
+  }
+
+  private remember(sid: string, sess: session.SessionData | null): void {
+    if (this.cacheMs <= 0) return;
+    if (!sess) {
+      this.recent.delete(sid);
+      return;
+    }
+    if (this.recent.size >= MAX_CACHED_SESSIONS) {
+      // drop the oldest reads (a Map iterates in insertion order)
+      let drop = this.recent.size - MAX_CACHED_SESSIONS + 1;
+      for (const key of this.recent.keys()) {
+        if (drop-- <= 0) break;
+        this.recent.delete(key);
+      }
+    }
+    this.recent.delete(sid);
+    this.recent.set(sid, { json: JSON.stringify(sess), userId: sessionUserId(sess), readAt: Date.now() });
+  }
+
+  /** Forget the cached sessions of a user (their other sessions were just ended), except `keepSid`. */
+  forgetUser(userId: number, keepSid?: string): void {
+    for (const [sid, e] of this.recent) if (e.userId === userId && sid !== keepSid) this.recent.delete(sid);
+  }
 
   override async touch(sid: string, session: session.SessionData, callback?: (err?: unknown) => void): Promise<void> {
     const now = Date.now();
@@ -60,8 +100,20 @@ class SessionStore extends ConnectSessionKnexStore {
   }
 
   override async get(sid: string, callback: (err: unknown, session?: session.SessionData | null) => void): Promise<session.SessionData | null> {
+    const hit = this.recent.get(sid);
+    if (hit) {
+      const now = Date.now();
+      const s = now - hit.readAt < this.cacheMs ? (JSON.parse(hit.json) as session.SessionData) : null;
+      const expires = s?.cookie?.expires;
+      if (s && (!expires || new Date(expires).getTime() > now)) {
+        callback(null, s);
+        return s;
+      }
+      this.recent.delete(sid);
+    }
     try {
       const s = await super.get(sid, () => {});
+      this.remember(sid, s);
       callback(null, s);
       return s;
     } catch (err) {
@@ -74,6 +126,7 @@ class SessionStore extends ConnectSessionKnexStore {
     try {
       await super.set(sid, sess);
       this.lastTouch.set(sid, Date.now());
+      this.remember(sid, sess);
       callback?.();
     } catch (err) {
       callback?.(err);
@@ -82,6 +135,7 @@ class SessionStore extends ConnectSessionKnexStore {
 
   override async destroy(sid: string, callback?: (err?: unknown) => void): Promise<number> {
     this.lastTouch.delete(sid);
+    this.recent.delete(sid);
     try {
       const n = await super.destroy(sid);
       callback?.();
@@ -94,9 +148,19 @@ class SessionStore extends ConnectSessionKnexStore {
 }
 
 const TOUCH_EVERY_MS = 60_000;
+/** Most sessions one process keeps cached (the oldest reads go first). */
+const MAX_CACHED_SESSIONS = 10_000;
 
-export function createSessionMiddleware(opts: SessionOptions): { middleware: RequestHandler; store: ConnectSessionKnexStore } {
+/** The user id passport keeps in a session, if any. */
+function sessionUserId(sess: session.SessionData): number | null {
+  const user = (sess as { passport?: { user?: unknown } }).passport?.user;
+  if (user && typeof user === 'object' && 'id' in user) return Number((user as { id: unknown }).id);
+  return typeof user === 'number' ? user : null;
+}
+
+export function createSessionMiddleware(opts: SessionOptions): { middleware: RequestHandler; store: SessionStore } {
   const store = new SessionStore({
+    cacheMs: opts.cacheMs,
     knex: opts.db,
     tableName: 'auth_sessions',
     createTable: false,

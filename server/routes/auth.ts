@@ -79,6 +79,7 @@ export function authRoutes(ctx: AppContext): Router {
       .whereRaw("JSON_VALUE(sess, '$.passport.user.id') = ?", [row.id])
       .andWhereNot({ sid: req.sessionID })
       .delete();
+    ctx.sessions.forgetUser(row.id, req.sessionID);
     await audit(db, { userId: row.id, action: 'user.password', subject: row.email });
     res.status(204).end();
   });

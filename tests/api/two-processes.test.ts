@@ -1,6 +1,7 @@
 /**
  * Sessions live in MariaDB: a sign-in on one server process is recognised by a second
- * process on the same database (what scaling out behind a load balancer needs).
+ * process on the same database (what scaling out behind a load balancer needs), and a
+ * sign-out on one ends the session on the other within SESSION_CACHE_MS.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import path from 'node:path';
@@ -23,6 +24,7 @@ async function startProcess(t: TestDb, port: number): Promise<ChildProcess> {
       SESSION_SECRET: 'shared-secret-of-both-processes',
       SEED_DEMO: 'false',
       BUILD_WEB: 'false',
+      SESSION_CACHE_MS: String(CACHE_MS),
     },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
@@ -38,6 +40,9 @@ async function startProcess(t: TestDb, port: number): Promise<ChildProcess> {
   child.kill('SIGTERM');
   throw new Error(`server did not start: ${out}`);
 }
+
+/** How long each process may reuse a session it read (short here, so the test waits little). */
+const CACHE_MS = 400;
 
 let t: TestDb;
 const procs: ChildProcess[] = [];
@@ -71,6 +76,11 @@ it('a session made on process A is recognised by process B', async () => {
   // the CSRF token of A is valid on B too (it lives in the shared session)
   const out = await fetch(`http://127.0.0.1:${pb}/api/v1/auth/logout`, { method: 'POST', headers: { cookie, 'X-CSRF-Token': csrfToken } });
   expect(out.status).toBe(204);
-  const after = await fetch(`http://127.0.0.1:${pa}/api/v1/auth/me`, { headers: { cookie } });
-  expect(after.status).toBe(401);
+  // B, which ended the session, refuses it at once
+  const onB = await fetch(`http://127.0.0.1:${pb}/api/v1/auth/me`, { headers: { cookie } });
+  expect(onB.status).toBe(401);
+  // A had the session cached since the sign-in: it refuses it once its cached read is older than SESSION_CACHE_MS
+  await new Promise((r) => setTimeout(r, CACHE_MS + 100));
+  const onA = await fetch(`http://127.0.0.1:${pa}/api/v1/auth/me`, { headers: { cookie } });
+  expect(onA.status).toBe(401);
 }, 90_000);

@@ -1,5 +1,5 @@
-import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
 import { abs, add, cx, div, hypot, mul, sub } from './complex';
+import { eigenvaluesInto } from './eigen';
 import type { Complex } from './types';
 
 /**
@@ -127,7 +127,7 @@ export function polyFromRoots(roots: readonly Complex[]): number[] {
 
 /**
  * Roots of a real polynomial (descending coefficients) as the eigenvalues of its
- * companion matrix (ml-matrix's Hessenberg–QR EigenvalueDecomposition), after scaling the
+ * companion matrix (Hessenberg–QR, ./eigen: ml-matrix's eigenvalues without its eigenvectors), after scaling the
  * variable and balancing the matrix, then polished by Newton's method where a root is
  * well separated (clustered roots are left as the eigenvalue solver found them: their
  * symmetric functions, hence the coefficients they expand to, are then accurate).
@@ -155,13 +155,11 @@ export function polyRoots(pIn: readonly number[]): Complex[] {
   if (!Number.isFinite(sigma) || sigma === 0 || !q.every(Number.isFinite)) {
     throw new RangeError('polynomial coefficients span too wide a range to factor');
   }
-  const m: number[][] = [];
-  for (let i = 0; i < n; i++) {
-    const row: number[] = [];
-    for (let j = 0; j < n; j++) row.push(i === 0 ? -q[j + 1] : j === i - 1 ? 1 : 0);
-    m.push(row);
-  }
-  let roots: Complex[] = eigenvaluesOf(m).map((r) => cx(r.re * sigma, r.im * sigma));
+  // companion matrix (row-major): first row −q₁ … −qₙ, ones on the subdiagonal
+  const m = new Float64Array(n * n);
+  for (let j = 0; j < n; j++) m[j] = -q[j + 1];
+  for (let i = 1; i < n; i++) m[i * n + i - 1] = 1;
+  let roots: Complex[] = eigenvaluesOf(m, n).map((r) => cx(r.re * sigma, r.im * sigma));
   roots = roots.map((r, i) => {
     let sep = Infinity;
     roots.forEach((o, j) => {
@@ -172,20 +170,30 @@ export function polyRoots(pIn: readonly number[]): Complex[] {
   return [...enforceConjugates(roots), ...zeroRoots];
 }
 
-/** Eigenvalues of a small real matrix (balanced, then ml-matrix's Hessenberg–QR), conjugates exact. */
+/** Eigenvalues of a small real matrix (balanced, then Hessenberg–QR), conjugates exact. */
 export function eigenvalues(rows: number[][]): Complex[] {
-  if (rows.length === 0) return [];
-  return enforceConjugates(eigenvaluesOf(rows.map((r) => r.slice())));
+  const n = rows.length;
+  if (n === 0) return [];
+  const m = new Float64Array(n * n);
+  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) m[i * n + j] = rows[i][j];
+  return enforceConjugates(eigenvaluesOf(m, n));
 }
 
-/** Eigenvalues of a square matrix given as rows (balanced in place first). */
-function eigenvaluesOf(m: number[][]): Complex[] {
+/**
+ * Eigenvalues of an n×n matrix, row-major m[i·n + j] (balanced in place first), by the
+ * Hessenberg–QR iteration of ./eigen (the eigenvalues ml-matrix's EigenvalueDecomposition
+ * gives, bit for bit, without its eigenvector work).
+ */
+function eigenvaluesOf(m: Float64Array, n: number): Complex[] {
   // The Hessenberg–QR iteration has no iteration cap: never hand it a non-finite entry.
-  for (let i = 0; i < m.length; i++) for (let j = 0; j < m[i].length; j++) if (!Number.isFinite(m[i][j])) throw new RangeError('non-finite matrix entry');
-  balance(m);
-  const evd = new EigenvalueDecomposition(new Matrix(m), { assumeSymmetric: false });
-  const im = evd.imaginaryEigenvalues;
-  return evd.realEigenvalues.map((r, i) => cx(r, im[i]));
+  for (let i = 0; i < n * n; i++) if (!Number.isFinite(m[i])) throw new RangeError('non-finite matrix entry');
+  balance(m, n);
+  const re = new Float64Array(n);
+  const im = new Float64Array(n);
+  eigenvaluesInto(m, n, re, im);
+  const out: Complex[] = new Array(n);
+  for (let i = 0; i < n; i++) out[i] = cx(re[i], im[i]);
+  return out;
 }
 
 /** Roots of a x² + b x + c without cancellation. */
@@ -226,9 +234,8 @@ function enforceConjugates(roots: Complex[]): Complex[] {
   return out.concat(unpaired);
 }
 
-/** Parlett–Reinsch diagonal balancing by powers of two (EISPACK balanc; in place, exact similarity). */
-function balance(m: number[][]): void {
-  const n = m.length;
+/** Parlett–Reinsch diagonal balancing by powers of two (EISPACK balanc; in place on row-major m, exact similarity). */
+function balance(m: Float64Array, n: number): void {
   let noconv = true;
   for (let iter = 0; iter < 30 && noconv; iter++) {
     noconv = false;
@@ -237,8 +244,8 @@ function balance(m: number[][]): void {
       let r = 0;
       for (let j = 0; j < n; j++) {
         if (j === i) continue;
-        c += Math.abs(m[j][i]);
-        r += Math.abs(m[i][j]);
+        c += Math.abs(m[j * n + i]);
+        r += Math.abs(m[i * n + j]);
       }
       if (c === 0 || r === 0) continue;
       const s = c + r;
@@ -255,9 +262,8 @@ function balance(m: number[][]): void {
       }
       if (Number.isFinite(f) && f > 0 && (c + r) / f < 0.95 * s) {
         noconv = true;
-        const mi = m[i];
-        for (let j = 0; j < n; j++) mi[j] /= f;
-        for (let j = 0; j < n; j++) m[j][i] *= f;
+        for (let j = 0; j < n; j++) m[i * n + j] /= f;
+        for (let j = 0; j < n; j++) m[j * n + i] *= f;
       }
     }
   }

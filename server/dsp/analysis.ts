@@ -294,29 +294,31 @@ function phaseNear(e: Evaluator, periodSec: number | null, w: number, ref: numbe
   return ref + wrapPi(lmPh - ref);
 }
 
+/** The function whose root bisectCrossing seeks at ω: ln|L| (mode 0) or the phase on the branch of `ref` less `line` (mode 1). */
+function crossingValue(e: Evaluator, T: number | null, w: number, mode: 0 | 1, ref: number, line: number): number {
+  if (mode === 0) {
+    loopAt(e, T, w, WANT_MAG);
+    return lmLn;
+  }
+  return phaseNear(e, T, w, ref) - line;
+}
+
 /**
  * Root on log ω, between grid points a and b where f changes sign, by Illinois regula
  * falsi. f is ln|L| (mode 0; fa, fb its values at a and b) or the phase on the branch
  * of `ref` less `line` (mode 1).
  */
 function bisectCrossing(e: Evaluator, T: number | null, a: number, b: number, mode: 0 | 1, fa: number, fb: number, ref: number, line: number): number {
-  const f = (w: number): number => {
-    if (mode === 0) {
-      loopAt(e, T, w, WANT_MAG);
-      return lmLn;
-    }
-    return phaseNear(e, T, w, ref) - line;
-  };
   let x0 = Math.log(a);
   let x1 = Math.log(b);
-  let f0 = mode === 0 ? fa : f(a);
-  let f1 = mode === 0 ? fb : f(b);
+  let f0 = mode === 0 ? fa : crossingValue(e, T, a, mode, ref, line);
+  let f1 = mode === 0 ? fb : crossingValue(e, T, b, mode, ref, line);
   if (f0 === 0) return a;
   if (f1 === 0) return b;
   let side = 0;
   for (let k = 0; k < 100 && Math.abs(x1 - x0) > 1e-15 * Math.max(1, Math.abs(x0)); k++) {
     const x = (x0 * f1 - x1 * f0) / (f1 - f0);
-    const fx = f(Math.exp(x));
+    const fx = crossingValue(e, T, Math.exp(x), mode, ref, line);
     if (fx === 0) return Math.exp(x);
     if (Math.sign(fx) === Math.sign(f1)) {
       x1 = x;
@@ -334,29 +336,61 @@ function bisectCrossing(e: Evaluator, T: number | null, a: number, b: number, mo
   return Math.exp((x0 * f1 - x1 * f0) / (f1 - f0));
 }
 
+// Grid values of findCrossings (module scratch, grown as needed): |L| as the ratio of the
+// products (NaN where they under- or overflowed), ln|L| (NaN until needed, except at those
+// points), and the unwrapped phase (rad).
+let gridRatio = new Float64Array(512);
+let gridLn = new Float64Array(512);
+let gridPh = new Float64Array(512);
+
+/** ln|L| at grid point i (taken from the ratio only when first needed). */
+function gridLnAt(i: number): number {
+  let v = gridLn[i];
+  if (v !== v) v = gridLn[i] = Math.log(gridRatio[i]); // eslint-disable-line no-self-compare
+  return v;
+}
+
+/** Sign of ln|L| at grid point i: of ratio − 1 (ln is 0 exactly at 1 and has the sign of x − 1), or of ln|L| itself. */
+function gridLnSign(i: number): number {
+  const m = gridRatio[i];
+  if (m !== m) return Math.sign(gridLn[i]); // eslint-disable-line no-self-compare
+  return m > 1 ? 1 : m < 1 ? -1 : 0;
+}
+
 /**
  * All gain and phase crossovers of a zpk loop on a crossing grid: dense evaluation on
  * the grid, then regula falsi on log ω (DESIGN.md lessons: dense evaluation, then
  * refine). ln|L| and the phase (radians, any branch) come from lnMagPhaseInto; the grid
- * phase is unwrapped.
+ * phase is unwrapped. ln|L| is needed on the grid only for its sign, which is that of
+ * |L| − 1, so the logarithm is taken only at the points where it is used.
  */
 export function findCrossings(e: Evaluator, grid: CrossingGrid): Crossings {
   const { ws, xr, xi, periodSec: T } = grid;
   const n = ws.length;
   const hi = ws[n - 1];
-  const mags = new Float64Array(n);
-  const phs = new Float64Array(n);
+  if (gridRatio.length < n) {
+    gridRatio = new Float64Array(n);
+    gridLn = new Float64Array(n);
+    gridPh = new Float64Array(n);
+  }
+  const ratio = gridRatio;
+  const lns = gridLn;
+  const phs = gridPh;
   for (let i = 0; i < n; i++) {
-    lnMagPhaseInto(e, xr[i], xi[i], WANT_BOTH);
-    mags[i] = lmLn;
+    lnMagPhaseInto(e, xr[i], xi[i], WANT_PHASE | WANT_RATIO);
+    ratio[i] = lmRatio;
+    lns[i] = lmRatio === lmRatio ? NaN : lmLn; // eslint-disable-line no-self-compare
     const prev = i > 0 ? phs[i - 1] : lmPh;
     phs[i] = prev + wrapPi(lmPh - prev);
   }
   const out: Crossings = { gain: [], phase: [] };
+  let sNext = gridLnSign(0);
   for (let i = 0; i + 1 < n; i++) {
-    if (mags[i] === 0 || Math.sign(mags[i]) !== Math.sign(mags[i + 1])) {
-      if (mags[i] === 0 && i > 0 && mags[i - 1] === 0) continue;
-      const w = mags[i] === 0 ? ws[i] : bisectCrossing(e, T, ws[i], ws[i + 1], 0, mags[i], mags[i + 1], 0, 0);
+    const sHere = sNext;
+    sNext = gridLnSign(i + 1);
+    if (sHere === 0 || sHere !== sNext) {
+      if (sHere === 0 && i > 0 && gridLnSign(i - 1) === 0) continue;
+      const w = sHere === 0 ? ws[i] : bisectCrossing(e, T, ws[i], ws[i + 1], 0, gridLnAt(i), gridLnAt(i + 1), 0, 0);
       const ph = phaseNear(e, T, w, phs[i]);
       out.gain.push({ omega: w, phaseMarginDeg: wrap180(180 + ph * DEG) });
     }
@@ -374,7 +408,7 @@ export function findCrossings(e: Evaluator, grid: CrossingGrid): Crossings {
   const last = phs[n - 1];
   const offLine = wrapPi(last + Math.PI);
   if (Math.abs(offLine) < 1e-7 && !out.phase.some((p) => Math.abs(p.omega - hi) <= 1e-9 * hi)) {
-    out.phase.push({ omega: hi, gainMarginDb: (-20 / Math.LN10) * mags[n - 1] });
+    out.phase.push({ omega: hi, gainMarginDb: (-20 / Math.LN10) * gridLnAt(n - 1) });
   }
   return out;
 }
@@ -404,11 +438,18 @@ export function lnMagPhase(e: Evaluator, xr: number, xi: number): { lnMag: numbe
 const WANT_MAG = 1;
 const WANT_PHASE = 2;
 const WANT_BOTH = 3;
+/** |L| as the ratio of the products, in lmRatio, instead of its logarithm. */
+const WANT_RATIO = 4;
 // Results of lnMagPhaseInto (module scratch: the grid loops allocate nothing per point).
 let lmLn = 0;
 let lmPh = 0;
+let lmRatio = NaN;
 
-/** lnMagPhase into lmLn / lmPh; only the parts in `want` (the other is left 0). */
+/**
+ * lnMagPhase into lmLn / lmPh; only the parts in `want` (the other is left 0). With
+ * WANT_RATIO, |L| goes to lmRatio instead (lmLn left 0), except where the products under-
+ * or overflow: there lmRatio is NaN and lmLn holds ln|L| from the log-sum form.
+ */
 function lnMagPhaseInto(e: Evaluator, xr: number, xi: number, want: number): void {
   const { zr, zi, pr, pi } = e;
   let vr = e.k;
@@ -435,10 +476,23 @@ function lnMagPhaseInto(e: Evaluator, xr: number, xi: number, want: number): voi
     evalInto(e, xr, xi);
     lmLn = (outDb * Math.LN10) / 20;
     lmPh = outDeg / DEG;
+    lmRatio = NaN;
     return;
   }
+  lmRatio = want & WANT_RATIO ? m : NaN;
   lmLn = want & WANT_MAG ? Math.log(m) : 0;
   lmPh = want & WANT_PHASE ? Math.atan2(vi, vr) - Math.atan2(qi, qr) : 0;
+}
+
+/**
+ * |T(jω)| of the continuous closed loop T = L/(1 + L) from the loop's ln|L| and ∠L at jω
+ * (ω in rad/s).
+ */
+export function closedLoopMagnitudeAt(e: Evaluator, w: number): number {
+  lnMagPhaseInto(e, 0, w, WANT_BOTH);
+  const m = Math.exp(lmLn);
+  const ph = lmPh;
+  return m / hypot(1 + m * Math.cos(ph), m * Math.sin(ph));
 }
 
 // ------------------------------------------------------------------ loops and steps

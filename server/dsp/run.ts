@@ -9,7 +9,7 @@ import {
   type StepResponse,
 } from '../../schemas/discretize';
 import { MAX_ROOT_MAGNITUDE, type CompensatorInput } from '../../schemas/compensator';
-import { abs, cx, hypot } from './complex';
+import { abs, cx } from './complex';
 import { DspInputError } from './errors';
 import {
   closedLoopPoles,
@@ -23,7 +23,7 @@ import {
   discreteStep,
   evaluator,
   findCrossings,
-  lnMagPhase,
+  closedLoopMagnitudeAt,
   logGrid,
   pairRoots,
   pickMargins,
@@ -420,14 +420,9 @@ function stepOut(y: Float64Array, h: number, finalValue: number | null): StepRes
 function closedLoopBandwidthRad(loop: Zpk, lo: number, hi: number): number | null {
   const ws = logGrid(lo, hi, 200);
   const e = evaluator(loop);
-  const tmag = (w: number) => {
-    const { lnMag, ph } = lnMagPhase(e, 0, w);
-    const m = Math.exp(lnMag);
-    return m / hypot(1 + m * Math.cos(ph), m * Math.sin(ph));
-  };
-  const t0 = tmag(ws[0]);
+  const t0 = closedLoopMagnitudeAt(e, ws[0]);
   if (!(t0 > 0) || !Number.isFinite(t0)) return null;
-  for (const w of ws) if (tmag(w) < t0 / Math.SQRT2) return w;
+  for (let i = 0; i < ws.length; i++) if (closedLoopMagnitudeAt(e, ws[i]) < t0 / Math.SQRT2) return ws[i];
   return null;
 }
 

@@ -506,7 +506,7 @@ export function closedLoopPoles(numDesc: number[], denDesc: number[], delay = 0)
 
 /** Response metrics of a step (DESIGN.md / issue 3: overshoot, 10–90 % rise, 2 % settling). */
 export function stepMetrics(t: number[], y: number[], finalValue: number | null): StepResponse {
-  return { timeSec: t, output: y, finalValue, ...stepFigures(y, y.length, (k) => t[k], finalValue) };
+  return { timeSec: t, output: y, finalValue, ...stepFigures(y, y.length, t, 0, finalValue) };
 }
 
 /**
@@ -514,52 +514,66 @@ export function stepMetrics(t: number[], y: number[], finalValue: number | null)
  * arrays of the first `shown` samples thinned to ≤ maxPoints (every stride-th and the last).
  */
 export function uniformStep(y: ArrayLike<number>, n: number, h: number, finalValue: number | null, shown: number, maxPoints: number): StepResponse {
-  const timeSec: number[] = [];
-  const output: number[] = [];
+  let timeSec: number[] = [];
+  let output: number[] = [];
   if (shown > 0) {
     const stride = Math.ceil(shown / maxPoints);
-    for (let k = 0; k < shown; k += stride) {
-      timeSec.push(k * h);
-      output.push(y[k]);
+    const regular = Math.ceil(shown / stride);
+    const withLast = (shown - 1) % stride !== 0;
+    const count = regular + (withLast ? 1 : 0);
+    timeSec = new Array<number>(count);
+    output = new Array<number>(count);
+    for (let j = 0, k = 0; j < regular; j++, k += stride) {
+      timeSec[j] = k * h;
+      output[j] = y[k];
     }
-    if ((shown - 1) % stride !== 0) {
-      timeSec.push((shown - 1) * h);
-      output.push(y[shown - 1]);
+    if (withLast) {
+      timeSec[regular] = (shown - 1) * h;
+      output[regular] = y[shown - 1];
     }
   }
-  return { timeSec, output, finalValue, ...stepFigures(y, n, (k) => k * h, finalValue) };
+  const fig = stepFigures(y, n, null, h, finalValue);
+  return { timeSec, output, finalValue, overshootPercent: fig.overshootPercent, riseTimeSec: fig.riseTimeSec, settlingTimeSec: fig.settlingTimeSec };
 }
 
-function stepFigures(y: ArrayLike<number>, n: number, t: (k: number) => number, finalValue: number | null): Pick<StepResponse, 'overshootPercent' | 'riseTimeSec' | 'settlingTimeSec'> {
-  const none = { overshootPercent: null, riseTimeSec: null, settlingTimeSec: null };
-  if (finalValue === null || finalValue === 0 || !Number.isFinite(finalValue)) return none;
+/**
+ * Overshoot (%), 10–90 % rise time and 2 % settling time (s) of the first n samples of a
+ * step; sample k at time t[k], or at k·h when t is null. Null figures without a finite,
+ * non-zero final value.
+ */
+function stepFigures(y: ArrayLike<number>, n: number, t: ArrayLike<number> | null, h: number, finalValue: number | null): Pick<StepResponse, 'overshootPercent' | 'riseTimeSec' | 'settlingTimeSec'> {
+  if (finalValue === null || finalValue === 0 || !Number.isFinite(finalValue)) return { overshootPercent: null, riseTimeSec: null, settlingTimeSec: null };
   const f = finalValue;
   const sgn = Math.sign(f);
   let peak = -Infinity;
   for (let k = 0; k < n; k++) peak = Math.max(peak, sgn * y[k]);
   const overshootPercent = Math.max(0, ((peak - Math.abs(f)) / Math.abs(f)) * 100);
-  const cross = (level: number): number | null => {
-    for (let k = 0; k < n; k++) {
-      if (sgn * y[k] >= level) {
-        if (k === 0) return t(0);
-        const y0 = sgn * y[k - 1];
-        const y1 = sgn * y[k];
-        const tk1 = t(k - 1);
-        return tk1 + ((level - y0) / (y1 - y0)) * (t(k) - tk1);
-      }
-    }
-    return null;
-  };
-  const t10 = cross(0.1 * Math.abs(f));
-  const t90 = cross(0.9 * Math.abs(f));
+  const t10 = levelCrossing(y, n, t, h, sgn, 0.1 * Math.abs(f));
+  const t90 = levelCrossing(y, n, t, h, sgn, 0.9 * Math.abs(f));
   const band = 0.02 * Math.abs(f);
-  let lastOut = -1;
-  for (let k = 0; k < n; k++) if (Math.abs(y[k] - f) > band) lastOut = k;
+  // the last sample outside the 2 % band (−1: none)
+  let lastOut = n - 1;
+  while (lastOut >= 0 && !(Math.abs(y[lastOut] - f) > band)) lastOut--;
   return {
     overshootPercent,
     riseTimeSec: t10 !== null && t90 !== null ? t90 - t10 : null,
-    settlingTimeSec: lastOut === n - 1 ? null : lastOut < 0 ? t(0) : t(lastOut + 1),
+    settlingTimeSec: lastOut === n - 1 ? null : lastOut < 0 ? (t ? t[0] : 0 * h) : t ? t[lastOut + 1] : (lastOut + 1) * h,
   };
+}
+
+/** First time sgn·y reaches `level`, linearly interpolated between samples; null when it never does. */
+function levelCrossing(y: ArrayLike<number>, n: number, t: ArrayLike<number> | null, h: number, sgn: number, level: number): number | null {
+  for (let k = 0; k < n; k++) {
+    if (sgn * y[k] >= level) {
+      if (k === 0) return t ? t[0] : 0 * h;
+      const y0 = sgn * y[k - 1];
+      const y1 = sgn * y[k];
+      const tk1 = t ? t[k - 1] : (k - 1) * h;
+      const tk = t ? t[k] : k * h;
+      return tk1 + ((level - y0) / (y1 - y0)) * (tk - tk1);
+    }
+  }
+  return null;
 }
 
 /** y[k] = C x[k] + D, x[k+1] = F x[k] + g (a held unit step), k = 0 … steps. */

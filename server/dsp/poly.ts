@@ -1,6 +1,11 @@
-import { abs, add, cx, div, hypot, mul, sub } from './complex';
+import { add, cx as complexOf, hypot as complexHypot, mul, sub } from './complex';
 import { eigenvaluesInto } from './eigen';
 import type { Complex } from './types';
+
+// bound once: a module-local name is called directly (an imported binding is read
+// through the module's export object on every call)
+const hypot = complexHypot;
+const cx = complexOf;
 
 /**
  * Real polynomials as coefficient arrays in DESCENDING powers of the variable
@@ -42,23 +47,6 @@ export function polyval(p: readonly number[], x: Complex): Complex {
   return { re, im };
 }
 
-/** Horner value and derivative at a complex point. */
-function polyvalDeriv(p: readonly number[], x: Complex): [Complex, Complex] {
-  let vr = 0;
-  let vi = 0;
-  let dr = 0;
-  let di = 0;
-  for (const c of p) {
-    const ndr = dr * x.re - di * x.im + vr;
-    di = dr * x.im + di * x.re + vi;
-    dr = ndr;
-    const nvr = vr * x.re - vi * x.im + c;
-    vi = vr * x.im + vi * x.re;
-    vr = nvr;
-  }
-  return [{ re: vr, im: vi }, { re: dr, im: di }];
-}
-
 /**
  * Splits roots into real ones and complex pairs (each pair given by its member with
  * im > 0). Conjugates are matched by nearest partner; an unmatched complex root is
@@ -68,34 +56,35 @@ export function splitRoots(roots: readonly Complex[]): { real: number[]; pairs: 
   const real: number[] = [];
   const upper: Complex[] = [];
   const lower: Complex[] = [];
-  for (const r of roots) {
+  for (let i = 0; i < roots.length; i++) {
+    const r = roots[i];
     if (r.im === 0) real.push(r.re);
-    else (r.im > 0 ? upper : lower).push(r);
+    else if (r.im > 0) upper.push(r);
+    else lower.push(r);
   }
   const pairs: Complex[] = [];
   const unpaired: Complex[] = [];
   const used = new Array<boolean>(lower.length).fill(false);
-  for (const u of upper) {
+  for (let i = 0; i < upper.length; i++) {
+    const u = upper[i];
     let best = -1;
     let bestD = Infinity;
-    lower.forEach((l, j) => {
-      if (used[j]) return;
-      const d = hypot(l.re - u.re, l.im + u.im);
+    for (let j = 0; j < lower.length; j++) {
+      if (used[j]) continue;
+      const d = hypot(lower[j].re - u.re, lower[j].im + u.im);
       if (d < bestD) {
         bestD = d;
         best = j;
       }
-    });
-    if (best < 0 || bestD > 1e-6 * Math.max(1, abs(u))) unpaired.push(u);
+    }
+    if (best < 0 || bestD > 1e-6 * Math.max(1, hypot(u.re, u.im))) unpaired.push(u);
     else {
       used[best] = true;
       const l = lower[best];
       pairs.push({ re: (u.re + l.re) / 2, im: (u.im - l.im) / 2 });
     }
   }
-  lower.forEach((l, j) => {
-    if (!used[j]) unpaired.push(l);
-  });
+  for (let j = 0; j < lower.length; j++) if (!used[j]) unpaired.push(lower[j]);
   return { real, pairs, unpaired };
 }
 
@@ -159,15 +148,27 @@ export function polyRoots(pIn: readonly number[]): Complex[] {
   const m = new Float64Array(n * n);
   for (let j = 0; j < n; j++) m[j] = -q[j + 1];
   for (let i = 1; i < n; i++) m[i * n + i - 1] = 1;
-  let roots: Complex[] = eigenvaluesOf(m, n).map((r) => cx(r.re * sigma, r.im * sigma));
-  roots = roots.map((r, i) => {
+  const re = new Float64Array(n);
+  const im = new Float64Array(n);
+  eigenvaluesOf(m, n, re, im);
+  for (let i = 0; i < n; i++) {
+    re[i] = re[i] * sigma;
+    im[i] = im[i] * sigma;
+  }
+  // Newton polish of the roots well separated from the others (separation measured
+  // between the unpolished roots)
+  const roots: Complex[] = new Array(n);
+  for (let i = 0; i < n; i++) {
     let sep = Infinity;
-    roots.forEach((o, j) => {
-      if (j !== i) sep = Math.min(sep, abs(sub(o, r)));
-    });
-    return sep > 1e-3 * Math.max(abs(r), 1e-300) ? newtonPolish(p, r) : r;
-  });
-  return [...enforceConjugates(roots), ...zeroRoots];
+    for (let j = 0; j < n; j++) if (j !== i) sep = Math.min(sep, hypot(re[j] - re[i], im[j] - im[i]));
+    if (sep > 1e-3 * Math.max(hypot(re[i], im[i]), 1e-300)) {
+      newtonPolish(p, re[i], im[i]);
+      roots[i] = cx(polishedRe, polishedIm);
+    } else roots[i] = cx(re[i], im[i]);
+  }
+  const out = enforceConjugates(roots);
+  for (let i = 0; i < zeroRoots.length; i++) out.push(zeroRoots[i]);
+  return out;
 }
 
 /** Eigenvalues of a small real matrix (balanced, then Hessenberg–QR), conjugates exact. */
@@ -176,24 +177,24 @@ export function eigenvalues(rows: number[][]): Complex[] {
   if (n === 0) return [];
   const m = new Float64Array(n * n);
   for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) m[i * n + j] = rows[i][j];
-  return enforceConjugates(eigenvaluesOf(m, n));
+  const re = new Float64Array(n);
+  const im = new Float64Array(n);
+  eigenvaluesOf(m, n, re, im);
+  const out: Complex[] = new Array(n);
+  for (let i = 0; i < n; i++) out[i] = cx(re[i], im[i]);
+  return enforceConjugates(out);
 }
 
 /**
- * Eigenvalues of an n×n matrix, row-major m[i·n + j] (balanced in place first), by the
- * Hessenberg–QR iteration of ./eigen (the eigenvalues ml-matrix's EigenvalueDecomposition
- * gives, bit for bit, without its eigenvector work).
+ * Eigenvalues of an n×n matrix, row-major m[i·n + j] (balanced in place first), into
+ * re/im, by the Hessenberg–QR iteration of ./eigen (the eigenvalues ml-matrix's
+ * EigenvalueDecomposition gives, bit for bit, without its eigenvector work).
  */
-function eigenvaluesOf(m: Float64Array, n: number): Complex[] {
+function eigenvaluesOf(m: Float64Array, n: number, re: Float64Array, im: Float64Array): void {
   // The Hessenberg–QR iteration has no iteration cap: never hand it a non-finite entry.
   for (let i = 0; i < n * n; i++) if (!Number.isFinite(m[i])) throw new RangeError('non-finite matrix entry');
   balance(m, n);
-  const re = new Float64Array(n);
-  const im = new Float64Array(n);
   eigenvaluesInto(m, n, re, im);
-  const out: Complex[] = new Array(n);
-  for (let i = 0; i < n; i++) out[i] = cx(re[i], im[i]);
-  return out;
 }
 
 /** Roots of a x² + b x + c without cancellation. */
@@ -210,28 +211,85 @@ function quadraticRoots(a: number, b: number, c: number): Complex[] {
   return [cx(re, im), cx(re, -im)];
 }
 
-/** Up to a few Newton steps, kept only while |p(x)| decreases. */
-function newtonPolish(p: readonly number[], x0: Complex): Complex {
-  let x = x0;
-  let fx = abs(polyval(p, x));
+// Result of newtonPolish (module scratch).
+let polishedRe = 0;
+let polishedIm = 0;
+
+/**
+ * Up to a few Newton steps from x0 = x0r + j·x0i on the descending polynomial p, kept only
+ * while |p(x)| decreases; the root into polishedRe / polishedIm. (Complex arithmetic
+ * written out on scalars: Horner for p and p′, Smith's division.)
+ */
+function newtonPolish(p: readonly number[], x0r: number, x0i: number): void {
+  let xr = x0r;
+  let xi = x0i;
+  let fx = absPolyval(p, xr, xi);
   for (let k = 0; k < 4 && fx > 0; k++) {
-    const [v, d] = polyvalDeriv(p, x);
-    if (abs(d) === 0) break;
-    const next = sub(x, div(v, d));
-    const fn = abs(polyval(p, next));
+    // value v and derivative d at x by Horner
+    let vr = 0;
+    let vi = 0;
+    let dr = 0;
+    let di = 0;
+    for (let i = 0; i < p.length; i++) {
+      const ndr = dr * xr - di * xi + vr;
+      di = dr * xi + di * xr + vi;
+      dr = ndr;
+      const nvr = vr * xr - vi * xi + p[i];
+      vi = vr * xi + vi * xr;
+      vr = nvr;
+    }
+    if (hypot(dr, di) === 0) break;
+    // step v/d by Smith's algorithm
+    let sr: number;
+    let si: number;
+    if (Math.abs(dr) >= Math.abs(di)) {
+      const r = di / dr;
+      const den = dr + di * r;
+      sr = (vr + vi * r) / den;
+      si = (vi - vr * r) / den;
+    } else {
+      const r = dr / di;
+      const den = dr * r + di;
+      sr = (vr * r + vi) / den;
+      si = (vi * r - vr) / den;
+    }
+    const nr = xr - sr;
+    const ni = xi - si;
+    const fn = absPolyval(p, nr, ni);
     if (!(fn < fx)) break;
-    x = next;
+    xr = nr;
+    xi = ni;
     fx = fn;
   }
-  return x;
+  polishedRe = xr;
+  polishedIm = xi;
+}
+
+/** |p(x)| at x = xr + j·xi by Horner (as polyval). */
+function absPolyval(p: readonly number[], xr: number, xi: number): number {
+  let re = 0;
+  let im = 0;
+  for (let i = 0; i < p.length; i++) {
+    const r = re * xr - im * xi + p[i];
+    im = re * xi + im * xr;
+    re = r;
+  }
+  return hypot(re, im);
 }
 
 /** Real roots stay real; a complex root and its partner become exact conjugates. */
 function enforceConjugates(roots: Complex[]): Complex[] {
-  const { real, pairs, unpaired } = splitRoots(roots.map((r) => (Math.abs(r.im) <= 1e-14 * abs(r) ? cx(r.re) : r)));
-  const out: Complex[] = real.map((r) => cx(r));
-  for (const r of pairs) out.push(r, cx(r.re, -r.im));
-  return out.concat(unpaired);
+  const snapped: Complex[] = new Array(roots.length);
+  for (let i = 0; i < roots.length; i++) {
+    const r = roots[i];
+    snapped[i] = Math.abs(r.im) <= 1e-14 * hypot(r.re, r.im) ? cx(r.re) : r;
+  }
+  const { real, pairs, unpaired } = splitRoots(snapped);
+  const out: Complex[] = [];
+  for (let i = 0; i < real.length; i++) out.push(cx(real[i]));
+  for (let i = 0; i < pairs.length; i++) out.push(pairs[i], cx(pairs[i].re, -pairs[i].im));
+  for (let i = 0; i < unpaired.length; i++) out.push(unpaired[i]);
+  return out;
 }
 
 /** Parlett–Reinsch diagonal balancing by powers of two (EISPACK balanc; in place on row-major m, exact similarity). */

@@ -576,16 +576,12 @@ function levelCrossing(y: ArrayLike<number>, n: number, t: ArrayLike<number> | n
   return null;
 }
 
-/** y[k] = C x[k] + D, x[k+1] = F x[k] + g (a held unit step), k = 0 … steps. */
-function iterateStep(f: number[][], g: number[], c: number[], d: number, steps: number): Float64Array {
+/** y[k] = C x[k] + D, x[k+1] = F x[k] + g (a held unit step), k = 0 … steps; F n×n row-major. */
+function iterateStep(f: Float64Array, g: Float64Array, c: Float64Array, d: number, steps: number): Float64Array {
   const n = g.length;
-  const flat = new Float64Array(n * n);
-  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) flat[i * n + j] = f[i][j];
-  const gv = Float64Array.from(g);
-  const cv = Float64Array.from(c);
   const y = new Float64Array(steps + 1);
-  if (n <= MAX_UNROLLED_STATES) stepKernel(n)(flat, gv, cv, d, steps, y);
-  else iterateLoop(flat, gv, cv, d, steps, y);
+  if (n <= MAX_UNROLLED_STATES) stepKernel(n)(f, g, c, d, steps, y);
+  else iterateLoop(f, g, c, d, steps, y);
   return y;
 }
 

@@ -1,89 +1,101 @@
-import { hypot } from './complex';
+import { hypot as complexHypot } from './complex';
 import type { Complex } from './types';
 
+// bound once: a module-local name is called directly (an imported binding is read
+// through the module's export object on every call)
+const hypot = complexHypot;
+
 /**
- * Small dense real matrices as row-major number[][] (sizes ≤ ~25 here).
+ * Small dense real matrices, square, stored flat in row-major order: entry (i, j) of an
+ * n×n matrix is m[i·n + j] (sizes ≤ ~25 here). Flat storage keeps the matrix exponential
+ * of the ZOH and step code free of per-row arrays; every routine performs the operations
+ * of the textbook loops in their order (so results do not depend on the storage).
  * `expm` is written out rather than taken from mathjs because mathjs 15's expm costs
  * ~0.7 ms on an 11×11 matrix and the whole compute request must stay under 2 ms.
  */
-export type Mat = number[][];
 
-export function zeros(r: number, c: number): Mat {
-  const m: Mat = [];
-  for (let i = 0; i < r; i++) {
-    const row: number[] = [];
-    for (let j = 0; j < c; j++) row.push(0);
-    m.push(row);
-  }
-  return m;
-}
-export const identity = (n: number): Mat => {
-  const m = zeros(n, n);
-  for (let i = 0; i < n; i++) m[i][i] = 1;
-  return m;
-};
-
-export function matMul(a: Mat, b: Mat): Mat {
-  const n = a.length;
-  const k = b.length;
-  const m = b[0]?.length ?? 0;
-  const out = zeros(n, m);
+/** n×n product a·b. Terms with a zero factor from a are skipped (they add nothing). */
+export function matMul(a: Float64Array, b: Float64Array, n: number): Float64Array {
+  const out = new Float64Array(n * n);
   for (let i = 0; i < n; i++) {
-    const ai = a[i];
-    const oi = out[i];
-    for (let p = 0; p < k; p++) {
-      const v = ai[p];
+    const ai = i * n;
+    for (let p = 0; p < n; p++) {
+      const v = a[ai + p];
       if (v === 0) continue;
-      const bp = b[p];
-      for (let j = 0; j < m; j++) oi[j] += v * bp[j];
+      const bp = p * n;
+      for (let j = 0; j < n; j++) out[ai + j] += v * b[bp + j];
     }
   }
   return out;
 }
 
-/** Σ cᵢ·Mᵢ (+ c0·I when `eyeCoef` is given). */
-function lincomb(terms: Array<[number, Mat]>, n: number, eyeCoef = 0): Mat {
-  const out = zeros(n, n);
-  for (const [c, m] of terms) for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) out[i][j] += c * m[i][j];
-  for (let i = 0; i < n; i++) out[i][i] += eyeCoef;
+/** c1·M1 + c2·M2 + c3·M3 (+ c4·M4) + eyeCoef·I, summed term by term in that order from 0. */
+function lincomb(n: number, eyeCoef: number, c1: number, m1: Float64Array, c2: number, m2: Float64Array, c3: number, m3: Float64Array, c4 = 0, m4: Float64Array | null = null): Float64Array {
+  const nn = n * n;
+  const out = new Float64Array(nn);
+  for (let k = 0; k < nn; k++) out[k] += c1 * m1[k];
+  for (let k = 0; k < nn; k++) out[k] += c2 * m2[k];
+  for (let k = 0; k < nn; k++) out[k] += c3 * m3[k];
+  if (m4) for (let k = 0; k < nn; k++) out[k] += c4 * m4[k];
+  for (let i = 0; i < n; i++) out[i * n + i] += eyeCoef;
   return out;
 }
 
-/** Solves A X = B (A square) by Gaussian elimination with partial pivoting. */
-export function solve(aIn: Mat, bIn: Mat): Mat {
-  const n = aIn.length;
-  const a = aIn.map((r) => r.slice());
-  const b = bIn.map((r) => r.slice());
-  const m = b[0].length;
+/** c1·M1 + c2·M2 (+ 0·I), summed from 0 in that order. */
+function lincomb2(n: number, c1: number, m1: Float64Array, c2: number, m2: Float64Array): Float64Array {
+  const nn = n * n;
+  const out = new Float64Array(nn);
+  for (let k = 0; k < nn; k++) out[k] += c1 * m1[k];
+  for (let k = 0; k < nn; k++) out[k] += c2 * m2[k];
+  for (let i = 0; i < n; i++) out[i * n + i] += 0;
+  return out;
+}
+
+/** Solves A X = B (both n×n; neither is modified) by Gaussian elimination with partial pivoting. */
+export function solve(aIn: Float64Array, bIn: Float64Array, n: number): Float64Array {
+  const a = aIn.slice();
+  const b = bIn.slice();
+  const m = n;
   for (let col = 0; col < n; col++) {
     let piv = col;
-    for (let i = col + 1; i < n; i++) if (Math.abs(a[i][col]) > Math.abs(a[piv][col])) piv = i;
-    [a[col], a[piv]] = [a[piv], a[col]];
-    [b[col], b[piv]] = [b[piv], b[col]];
-    const d = a[col][col];
+    for (let i = col + 1; i < n; i++) if (Math.abs(a[i * n + col]) > Math.abs(a[piv * n + col])) piv = i;
+    if (piv !== col) {
+      swapRows(a, n, col, piv);
+      swapRows(b, m, col, piv);
+    }
+    const d = a[col * n + col];
     if (d === 0) throw new Error('singular matrix');
     for (let i = col + 1; i < n; i++) {
-      const f = a[i][col] / d;
+      const f = a[i * n + col] / d;
       if (f === 0) continue;
-      for (let j = col; j < n; j++) a[i][j] -= f * a[col][j];
-      for (let j = 0; j < m; j++) b[i][j] -= f * b[col][j];
+      for (let j = col; j < n; j++) a[i * n + j] -= f * a[col * n + j];
+      for (let j = 0; j < m; j++) b[i * m + j] -= f * b[col * m + j];
     }
   }
   for (let col = n - 1; col >= 0; col--) {
     for (let j = 0; j < m; j++) {
-      let s = b[col][j];
-      for (let k = col + 1; k < n; k++) s -= a[col][k] * b[k][j];
-      b[col][j] = s / a[col][col];
+      let s = b[col * m + j];
+      for (let k = col + 1; k < n; k++) s -= a[col * n + k] * b[k * m + j];
+      b[col * m + j] = s / a[col * n + col];
     }
   }
   return b;
 }
 
-function norm1(a: Mat): number {
+function swapRows(m: Float64Array, cols: number, r1: number, r2: number): void {
+  for (let j = 0; j < cols; j++) {
+    const t = m[r1 * cols + j];
+    m[r1 * cols + j] = m[r2 * cols + j];
+    m[r2 * cols + j] = t;
+  }
+}
+
+/** 1-norm (largest absolute column sum). */
+function norm1(a: Float64Array, n: number): number {
   let best = 0;
-  for (let j = 0; j < a.length; j++) {
+  for (let j = 0; j < n; j++) {
     let s = 0;
-    for (let i = 0; i < a.length; i++) s += Math.abs(a[i][j]);
+    for (let i = 0; i < n; i++) s += Math.abs(a[i * n + j]);
     best = Math.max(best, s);
   }
   return best;
@@ -98,39 +110,39 @@ const B13 = [
 ];
 const THETA13 = 5.371920351148152;
 
-/** Matrix exponential e^A by Padé(13) with scaling and squaring (Higham 2005). */
-export function expm(aIn: Mat): Mat {
-  const n = aIn.length;
-  const nrm = norm1(aIn);
+/** Matrix exponential e^A of an n×n matrix by Padé(13) with scaling and squaring (Higham 2005). */
+export function expm(aIn: Float64Array, n: number): Float64Array {
+  const nrm = norm1(aIn, n);
   if (!Number.isFinite(nrm)) throw new RangeError('expm of a non-finite matrix');
   const s = nrm > THETA13 ? Math.max(0, Math.ceil(Math.log2(nrm / THETA13))) : 0;
   const f = Math.pow(2, -s);
-  const a = aIn.map((r) => r.map((v) => v * f));
-  const a2 = matMul(a, a);
-  const a4 = matMul(a2, a2);
-  const a6 = matMul(a4, a2);
+  const a = new Float64Array(n * n);
+  for (let k = 0; k < n * n; k++) a[k] = aIn[k] * f;
+  const a2 = matMul(a, a, n);
+  const a4 = matMul(a2, a2, n);
+  const a6 = matMul(a4, a2, n);
   const b = B13;
-  const u1 = matMul(a6, lincomb([[b[13], a6], [b[11], a4], [b[9], a2]], n));
-  const u = matMul(a, lincomb([[1, u1], [b[7], a6], [b[5], a4], [b[3], a2]], n, b[1]));
-  const v1 = matMul(a6, lincomb([[b[12], a6], [b[10], a4], [b[8], a2]], n));
-  const v = lincomb([[1, v1], [b[6], a6], [b[4], a4], [b[2], a2]], n, b[0]);
-  let r = solve(lincomb([[1, v], [-1, u]], n), lincomb([[1, v], [1, u]], n));
-  for (let k = 0; k < s; k++) r = matMul(r, r);
+  const u1 = matMul(a6, lincomb(n, 0, b[13], a6, b[11], a4, b[9], a2), n);
+  const u = matMul(a, lincomb(n, b[1], 1, u1, b[7], a6, b[5], a4, b[3], a2), n);
+  const v1 = matMul(a6, lincomb(n, 0, b[12], a6, b[10], a4, b[8], a2), n);
+  const v = lincomb(n, b[0], 1, v1, b[6], a6, b[4], a4, b[2], a2);
+  let r = solve(lincomb2(n, 1, v, -1, u), lincomb2(n, 1, v, 1, u), n);
+  for (let k = 0; k < s; k++) r = matMul(r, r, n);
   return r;
 }
 
-/** Determinant of a small complex matrix (rows of {re, im}) by LU with partial pivoting. */
-export function complexDet(mIn: Complex[][]): Complex {
-  const n = mIn.length;
-  const re = mIn.map((r) => r.map((c) => c.re));
-  const im = mIn.map((r) => r.map((c) => c.im));
+/**
+ * Determinant of a small complex n×n matrix, real and imaginary parts row-major in re/im
+ * (both overwritten), by LU with partial pivoting.
+ */
+export function complexDet(re: Float64Array, im: Float64Array, n: number): Complex {
   let dRe = 1;
   let dIm = 0;
   for (let col = 0; col < n; col++) {
     let piv = col;
-    let best = hypot(re[col][col], im[col][col]);
+    let best = hypot(re[col * n + col], im[col * n + col]);
     for (let i = col + 1; i < n; i++) {
-      const v = hypot(re[i][col], im[i][col]);
+      const v = hypot(re[i * n + col], im[i * n + col]);
       if (v > best) {
         best = v;
         piv = i;
@@ -138,29 +150,29 @@ export function complexDet(mIn: Complex[][]): Complex {
     }
     if (best === 0) return { re: 0, im: 0 };
     if (piv !== col) {
-      [re[col], re[piv]] = [re[piv], re[col]];
-      [im[col], im[piv]] = [im[piv], im[col]];
+      swapRows(re, n, col, piv);
+      swapRows(im, n, col, piv);
       dRe = -dRe;
       dIm = -dIm;
     }
-    const pr = re[col][col];
-    const pi = im[col][col];
+    const pr = re[col * n + col];
+    const pi = im[col * n + col];
     const t = dRe * pr - dIm * pi;
     dIm = dRe * pi + dIm * pr;
     dRe = t;
     const den = pr * pr + pi * pi;
     for (let i = col + 1; i < n; i++) {
       // f = m[i][col] / pivot
-      const ar = re[i][col];
-      const ai = im[i][col];
+      const ar = re[i * n + col];
+      const ai = im[i * n + col];
       if (ar === 0 && ai === 0) continue;
       const fr = (ar * pr + ai * pi) / den;
       const fi = (ai * pr - ar * pi) / den;
       for (let j = col; j < n; j++) {
-        const br = re[col][j];
-        const bi = im[col][j];
-        re[i][j] -= fr * br - fi * bi;
-        im[i][j] -= fr * bi + fi * br;
+        const br = re[col * n + j];
+        const bi = im[col * n + j];
+        re[i * n + j] -= fr * br - fi * bi;
+        im[i * n + j] -= fr * bi + fi * br;
       }
     }
   }

@@ -125,18 +125,31 @@ export function zohDiscretize(cont: Zpk, periodSec: number): DiscreteResult {
   }
   const ss = zpkToSs(cont);
   const { phi, gamma, phiMinusI } = zohSs(ss, T);
+  // N(zₖ) = det [[zₖI − Φ, Γ], [−C, D]], an (n+1)×(n+1) complex matrix
+  const size = n + 1;
   const values: Complex[] = [];
+  const mRe = new Float64Array(size * size);
+  const mIm = new Float64Array(size * size);
   for (let k = 0; k <= n; k++) {
     const th = (Math.PI * (2 * k + 1)) / (n + 1);
-    const zk = cx(Math.cos(th), Math.sin(th));
-    const m: Complex[][] = [];
+    const zr = Math.cos(th);
+    const zi = Math.sin(th);
     for (let i = 0; i < n; i++) {
-      const row: Complex[] = phi[i].map((v, j) => (i === j ? sub(zk, cx(v)) : cx(-v)));
-      row.push(cx(gamma[i]));
-      m.push(row);
+      for (let j = 0; j < n; j++) {
+        const v = phi[i * n + j];
+        mRe[i * size + j] = i === j ? zr - v : -v;
+        mIm[i * size + j] = i === j ? zi - 0 : 0;
+      }
+      mRe[i * size + n] = gamma[i];
+      mIm[i * size + n] = 0;
     }
-    m.push([...ss.c.map((v) => cx(-v)), cx(ss.d)]);
-    values.push(complexDet(m));
+    for (let j = 0; j < n; j++) {
+      mRe[n * size + j] = -ss.c[j];
+      mIm[n * size + j] = 0;
+    }
+    mRe[n * size + n] = ss.d;
+    mIm[n * size + n] = 0;
+    values.push(complexDet(mRe, mIm, size));
   }
   // a_m (coefficient of z^m) = (1/(n+1)) Σₖ N(zₖ)·conj(zₖ)^m
   const asc: number[] = [];
@@ -188,30 +201,51 @@ function zohDcGain(cont: Zpk): number | null {
  * eigenvalue at z = 0 (w = −1) that direction Γ contributes. Null when CΓ vanishes
  * (relative degree above one; the caller falls back to the numerator's roots).
  */
-function zohZeros(ss: StateSpace, phi: number[][], gamma: number[], phiMinusI: number[][]): Complex[] | null {
-  let m: number[][];
+function zohZeros(ss: StateSpace, phi: Float64Array, gamma: Float64Array, phiMinusI: Float64Array): Complex[] | null {
+  const n = ss.n;
+  const c = ss.c;
+  const m: number[][] = [];
   let dropOne = false;
   if (ss.d !== 0) {
-    m = phiMinusI.map((row, i) => row.map((v, j) => v - (gamma[i] * ss.c[j]) / ss.d));
+    for (let i = 0; i < n; i++) {
+      const row: number[] = new Array(n);
+      for (let j = 0; j < n; j++) row[j] = phiMinusI[i * n + j] - (gamma[i] * c[j]) / ss.d;
+      m.push(row);
+    }
   } else {
-    const cg = ss.c.reduce((acc, v, i) => acc + v * gamma[i], 0);
-    const scale = Math.sqrt(ss.c.reduce((a, v) => a + v * v, 0) * gamma.reduce((a, v) => a + v * v, 0));
+    let cg = 0;
+    let cc = 0;
+    let gg = 0;
+    let bound = 0;
+    for (let i = 0; i < n; i++) cg = cg + c[i] * gamma[i];
+    for (let i = 0; i < n; i++) cc = cc + c[i] * c[i];
+    for (let i = 0; i < n; i++) gg = gg + gamma[i] * gamma[i];
+    const scale = Math.sqrt(cc * gg);
     // CΓ ≈ C·A^{r−1}B·T^r/r! for a continuous relative degree r: small at high rates but
     // nonzero (a sampled system has discrete relative degree one), and the zero dynamics
     // below stay well scaled. Only an exact zero (or a value at rounding level of the
     // products) falls back to the numerator's roots.
-    const bound = ss.c.reduce((acc, v, i) => acc + Math.abs(v * gamma[i]), 0) * 64 * Number.EPSILON;
+    for (let i = 0; i < n; i++) bound = bound + Math.abs(c[i] * gamma[i]);
+    bound = bound * 64 * Number.EPSILON;
     if (!(Math.abs(cg) > bound) || !(scale > 0)) return null;
-    const cphi = ss.c.map((_, j) => ss.c.reduce((acc, v, k) => acc + v * phi[k][j], 0));
-    m = phiMinusI.map((row, i) => row.map((v, j) => v - (gamma[i] * cphi[j]) / cg));
+    // C·Φ
+    const cphi = new Float64Array(n);
+    for (let j = 0; j < n; j++) {
+      let acc = 0;
+      for (let k = 0; k < n; k++) acc = acc + c[k] * phi[k * n + j];
+      cphi[j] = acc;
+    }
+    for (let i = 0; i < n; i++) {
+      const row: number[] = new Array(n);
+      for (let j = 0; j < n; j++) row[j] = phiMinusI[i * n + j] - (gamma[i] * cphi[j]) / cg;
+      m.push(row);
+    }
     dropOne = true;
   }
   const w = eigenvalues(m);
   if (dropOne) {
     let best = 0;
-    w.forEach((v, i) => {
-      if (hypot(v.re + 1, v.im) < hypot(w[best].re + 1, w[best].im)) best = i;
-    });
+    for (let i = 0; i < w.length; i++) if (hypot(w[i].re + 1, w[i].im) < hypot(w[best].re + 1, w[best].im)) best = i;
     w.splice(best, 1);
   }
   return w.map((v) => cx(1 + v.re, v.im));

@@ -1,14 +1,24 @@
 import { splitRoots } from './poly';
-import { expm, matMul, type Mat, zeros as matZeros } from './linalg';
+import { expm, matMul } from './linalg';
 import type { Zpk } from './types';
 
 /**
  * State-space realizations x' = A x + B u, y = C x + D u (single input, single output).
  * Built as a cascade of first- and second-order sections from the roots (never from
  * expanded polynomials), which keeps the matrices well conditioned at any rate.
+ * A is n×n, flat row-major (entry (i, j) at a[i·n + j], as in ./linalg).
  */
 export interface StateSpace {
-  a: Mat;
+  n: number;
+  a: Float64Array;
+  b: Float64Array;
+  c: Float64Array;
+  d: number;
+}
+
+/** One section's (A, B, C, D): A as rows (1×1 or 2×2). */
+interface SectionSs {
+  a: number[][];
   b: number[];
   c: number[];
   d: number;
@@ -61,7 +71,7 @@ function mulPoly(a: number[], b: number[]): number[] {
   return out;
 }
 
-function sectionSs(s: Section): StateSpace {
+function sectionSs(s: Section): SectionSs {
   if (s.kind === 'real1') {
     // (b1 s + b0)/(s − p) = b1 + (b0 + b1 p)/(s − p)
     const [b1, b0] = s.num.length === 2 ? s.num : [0, s.num[0]];
@@ -84,40 +94,39 @@ function sectionSs(s: Section): StateSpace {
   return { a: [[p1, 0], [1, p2]], b: [1, 0], c: [r1, r0 + r1 * p2], d: b2 };
 }
 
-/** Series connection: u → first → second → y. */
-export function series(first: StateSpace, second: StateSpace): StateSpace {
-  const n1 = first.a.length;
-  const n2 = second.a.length;
-  const a = matZeros(n1 + n2, n1 + n2);
-  for (let i = 0; i < n1; i++) for (let j = 0; j < n1; j++) a[i][j] = first.a[i][j];
-  for (let i = 0; i < n2; i++) {
-    for (let j = 0; j < n1; j++) a[n1 + i][j] = second.b[i] * first.c[j];
-    for (let j = 0; j < n2; j++) a[n1 + i][n1 + j] = second.a[i][j];
-  }
-  return {
-    a,
-    b: [...first.b, ...second.b.map((v) => v * first.d)],
-    c: [...first.c.map((v) => v * second.d), ...second.c],
-    d: first.d * second.d,
-  };
-}
-
-/** Negative unity feedback around L: y = L(r − y). Requires 1 + D ≠ 0. */
-export function feedback(l: StateSpace): StateSpace {
-  const k = 1 / (1 + l.d);
-  const a = l.a.map((row, i) => row.map((v, j) => v - l.b[i] * k * l.c[j]));
-  return { a, b: l.b.map((v) => v * k), c: l.c.map((v) => v * k), d: l.d * k };
-}
-
 /**
  * Cascade realization of K·Π(s − zᵢ)/Π(s − pᵢ) (proper). The gain sits on the last
  * section's output. Example: 25(s + 3)/(s + 18) → A = [[−18]], B = [1], C = [25·(−15)], D = 25.
+ *
+ * The sections are connected in series one after the other, u → first → second → y:
+ * appending a section (a, b, c, d) to the cascade so far (A, B, C, D) gives
+ * [[A, 0], [b·C, a]], [B; b·D], [C·d, c], D·d. The matrices are filled in place in that
+ * order, so every entry is the same product as when each connection is formed anew.
  */
 export function zpkToSs(zpk: Zpk): StateSpace {
   const secs = sections(zpk).map(sectionSs);
-  let ss: StateSpace = { a: [], b: [], c: [], d: 1 };
-  for (const s of secs) ss = series(ss, s);
-  return { ...ss, c: ss.c.map((v) => v * zpk.gain), d: ss.d * zpk.gain };
+  let n = 0;
+  for (const s of secs) n += s.b.length;
+  const a = new Float64Array(n * n);
+  const b = new Float64Array(n);
+  const c = new Float64Array(n);
+  let d = 1;
+  let off = 0;
+  for (const s of secs) {
+    const m = s.b.length;
+    for (let i = 0; i < m; i++) {
+      const row = (off + i) * n;
+      for (let j = 0; j < off; j++) a[row + j] = s.b[i] * c[j];
+      for (let j = 0; j < m; j++) a[row + off + j] = s.a[i][j];
+      b[off + i] = s.b[i] * d;
+    }
+    for (let j = 0; j < off; j++) c[j] = c[j] * s.d;
+    for (let i = 0; i < m; i++) c[off + i] = s.c[i];
+    d = d * s.d;
+    off += m;
+  }
+  for (let j = 0; j < n; j++) c[j] = c[j] * zpk.gain;
+  return { n, a, b, c, d: d * zpk.gain };
 }
 
 /**
@@ -128,17 +137,25 @@ export function zpkToSs(zpk: Zpk): StateSpace {
  * formed by a product, not a subtraction, so it keeps its digits when Φ ≈ I.
  * C and D are unchanged.
  */
-export function zohSs(ss: StateSpace, periodSec: number): { phi: Mat; gamma: number[]; phiMinusI: Mat } {
-  const n = ss.a.length;
+export function zohSs(ss: StateSpace, periodSec: number): { phi: Float64Array; gamma: Float64Array; phiMinusI: Float64Array } {
+  const n = ss.n;
   const size = 2 * n + 1;
-  const m = matZeros(size, size);
+  const m = new Float64Array(size * size);
   for (let i = 0; i < n; i++) {
-    for (let j = 0; j < n; j++) m[i][j] = ss.a[i][j] * periodSec;
-    m[i][n] = ss.b[i] * periodSec;
-    m[i][n + 1 + i] = periodSec;
+    for (let j = 0; j < n; j++) m[i * size + j] = ss.a[i * n + j] * periodSec;
+    m[i * size + n] = ss.b[i] * periodSec;
+    m[i * size + n + 1 + i] = periodSec;
   }
-  const e = expm(m);
-  const psi = e.slice(0, n).map((r) => r.slice(n + 1));
-  const phiMinusI = matMul(ss.a, psi);
-  return { phi: e.slice(0, n).map((r) => r.slice(0, n)), gamma: e.slice(0, n).map((r) => r[n]), phiMinusI };
+  const e = expm(m, size);
+  const phi = new Float64Array(n * n);
+  const gamma = new Float64Array(n);
+  const psi = new Float64Array(n * n);
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j < n; j++) {
+      phi[i * n + j] = e[i * size + j];
+      psi[i * n + j] = e[i * size + n + 1 + j];
+    }
+    gamma[i] = e[i * size + n];
+  }
+  return { phi, gamma, phiMinusI: matMul(ss.a, psi, n) };
 }

@@ -205,13 +205,13 @@ export function continuousResponse(hIn: Zpk, omegas: number[]): Response {
 
 /** The points e^{jωT} of a frequency grid (shared by every method at one sample period). */
 export interface UnitCircleGrid {
-  re: Float64Array;
-  im: Float64Array;
+  re: number[];
+  im: number[];
 }
 export function unitCircleGrid(omegas: readonly number[], periodSec: number): UnitCircleGrid {
   const n = omegas.length;
-  const re = new Float64Array(n);
-  const im = new Float64Array(n);
+  const re = new Array<number>(n);
+  const im = new Array<number>(n);
   for (let i = 0; i < n; i++) {
     const wt = omegas[i] * periodSec;
     re[i] = Math.cos(wt);
@@ -262,19 +262,21 @@ const wrap180 = (deg: number) => {
  */
 export interface CrossingGrid {
   ws: number[];
-  xr: Float64Array;
-  xi: Float64Array;
+  xr: number[];
+  xi: number[];
   periodSec: number | null;
 }
 export function crossingGrid(lo: number, hi: number, points: number, periodSec: number | null): CrossingGrid {
   const ws = logGrid(lo, hi, points);
   const n = ws.length;
-  const xr = new Float64Array(n);
-  const xi = new Float64Array(n);
+  const xr = new Array<number>(n);
+  const xi = new Array<number>(n);
   for (let i = 0; i < n; i++) {
     const w = ws[i];
-    if (periodSec === null) xi[i] = w;
-    else {
+    if (periodSec === null) {
+      xr[i] = 0;
+      xi[i] = w;
+    } else {
       xr[i] = Math.cos(w * periodSec);
       xi[i] = Math.sin(w * periodSec);
     }
@@ -577,15 +579,15 @@ function levelCrossing(y: ArrayLike<number>, n: number, t: ArrayLike<number> | n
 }
 
 /** y[k] = C x[k] + D, x[k+1] = F x[k] + g (a held unit step), k = 0 … steps; F n×n row-major. */
-function iterateStep(f: Float64Array, g: Float64Array, c: Float64Array, d: number, steps: number): Float64Array {
+function iterateStep(f: number[], g: number[], c: number[], d: number, steps: number): number[] {
   const n = g.length;
-  const y = new Float64Array(steps + 1);
+  const y = new Array<number>(steps + 1);
   if (n <= MAX_UNROLLED_STATES) stepKernel(n)(f, g, c, d, steps, y);
   else iterateLoop(f, g, c, d, steps, y);
   return y;
 }
 
-type StepKernel = (f: Float64Array, g: Float64Array, c: Float64Array, d: number, steps: number, y: Float64Array) => void;
+type StepKernel = (f: number[], g: number[], c: number[], d: number, steps: number, y: number[]) => void;
 
 /** The general loop of iterateStep (states in arrays). */
 const iterateLoop: StepKernel = (flat, g, c, d, steps, y) => {
@@ -640,14 +642,14 @@ function stepKernel(n: number): StepKernel {
 }
 
 /** Continuous step of a zpk closed loop, exactly sampled every h seconds (expm of the augmented matrix). */
-export function continuousStep(cl: Zpk, h: number, steps: number): Float64Array {
+export function continuousStep(cl: Zpk, h: number, steps: number): number[] {
   const ss = zpkToSs(cl);
   const { phi, gamma } = zohSs(ss, h);
   return iterateStep(phi, gamma, ss.c, ss.d, steps);
 }
 
 /** Discrete step of a z-domain zpk: x[k+1] = A x[k] + B, y = C x + D (cascade realization). */
-export function discreteStep(cl: Zpk, steps: number): Float64Array {
+export function discreteStep(cl: Zpk, steps: number): number[] {
   const ss = zpkToSs(cl);
   return iterateStep(ss.a, ss.b, ss.c, ss.d, steps);
 }

@@ -128,8 +128,8 @@ export function zohDiscretize(cont: Zpk, periodSec: number): DiscreteResult {
   // N(zₖ) = det [[zₖI − Φ, Γ], [−C, D]], an (n+1)×(n+1) complex matrix
   const size = n + 1;
   const values: Complex[] = [];
-  const mRe = new Float64Array(size * size);
-  const mIm = new Float64Array(size * size);
+  const mRe = new Array<number>(size * size).fill(0);
+  const mIm = new Array<number>(size * size).fill(0);
   for (let k = 0; k <= n; k++) {
     const th = (Math.PI * (2 * k + 1)) / (n + 1);
     const zr = Math.cos(th);
@@ -201,7 +201,7 @@ function zohDcGain(cont: Zpk): number | null {
  * eigenvalue at z = 0 (w = −1) that direction Γ contributes. Null when CΓ vanishes
  * (relative degree above one; the caller falls back to the numerator's roots).
  */
-function zohZeros(ss: StateSpace, phi: Float64Array, gamma: Float64Array, phiMinusI: Float64Array): Complex[] | null {
+function zohZeros(ss: StateSpace, phi: number[], gamma: number[], phiMinusI: number[]): Complex[] | null {
   const n = ss.n;
   const c = ss.c;
   const m: number[][] = [];
@@ -229,7 +229,7 @@ function zohZeros(ss: StateSpace, phi: Float64Array, gamma: Float64Array, phiMin
     bound = bound * 64 * Number.EPSILON;
     if (!(Math.abs(cg) > bound) || !(scale > 0)) return null;
     // C·Φ
-    const cphi = new Float64Array(n);
+    const cphi = new Array<number>(n);
     for (let j = 0; j < n; j++) {
       let acc = 0;
       for (let k = 0; k < n; k++) acc = acc + c[k] * phi[k * n + j];

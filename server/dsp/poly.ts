@@ -145,7 +145,7 @@ export function polyRoots(pIn: readonly number[]): Complex[] {
     throw new RangeError('polynomial coefficients span too wide a range to factor');
   }
   // companion matrix (row-major): first row −q₁ … −qₙ, ones on the subdiagonal
-  const m = new Float64Array(n * n);
+  const m = new Array<number>(n * n).fill(0);
   for (let j = 0; j < n; j++) m[j] = -q[j + 1];
   for (let i = 1; i < n; i++) m[i * n + i - 1] = 1;
   const re = new Float64Array(n);
@@ -175,7 +175,7 @@ export function polyRoots(pIn: readonly number[]): Complex[] {
 export function eigenvalues(rows: number[][]): Complex[] {
   const n = rows.length;
   if (n === 0) return [];
-  const m = new Float64Array(n * n);
+  const m = new Array<number>(n * n);
   for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) m[i * n + j] = rows[i][j];
   const re = new Float64Array(n);
   const im = new Float64Array(n);
@@ -190,7 +190,7 @@ export function eigenvalues(rows: number[][]): Complex[] {
  * re/im, by the Hessenberg–QR iteration of ./eigen (the eigenvalues ml-matrix's
  * EigenvalueDecomposition gives, bit for bit, without its eigenvector work).
  */
-function eigenvaluesOf(m: Float64Array, n: number, re: Float64Array, im: Float64Array): void {
+function eigenvaluesOf(m: number[], n: number, re: Float64Array, im: Float64Array): void {
   // The Hessenberg–QR iteration has no iteration cap: never hand it a non-finite entry.
   for (let i = 0; i < n * n; i++) if (!Number.isFinite(m[i])) throw new RangeError('non-finite matrix entry');
   balance(m, n);
@@ -293,7 +293,7 @@ function enforceConjugates(roots: Complex[]): Complex[] {
 }
 
 /** Parlett–Reinsch diagonal balancing by powers of two (EISPACK balanc; in place on row-major m, exact similarity). */
-function balance(m: Float64Array, n: number): void {
+function balance(m: number[], n: number): void {
   let noconv = true;
   for (let iter = 0; iter < 30 && noconv; iter++) {
     noconv = false;

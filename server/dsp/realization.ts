@@ -1,5 +1,5 @@
 import { splitRoots } from './poly';
-import { expm, matMul } from './linalg';
+import { expm, matMulInto } from './linalg';
 import type { Zpk } from './types';
 
 /**
@@ -10,9 +10,9 @@ import type { Zpk } from './types';
  */
 export interface StateSpace {
   n: number;
-  a: Float64Array;
-  b: Float64Array;
-  c: Float64Array;
+  a: number[];
+  b: number[];
+  c: number[];
   d: number;
 }
 
@@ -107,9 +107,9 @@ export function zpkToSs(zpk: Zpk): StateSpace {
   const secs = sections(zpk).map(sectionSs);
   let n = 0;
   for (const s of secs) n += s.b.length;
-  const a = new Float64Array(n * n);
-  const b = new Float64Array(n);
-  const c = new Float64Array(n);
+  const a = zeros(n * n);
+  const b = zeros(n);
+  const c = zeros(n);
   let d = 1;
   let off = 0;
   for (const s of secs) {
@@ -137,19 +137,19 @@ export function zpkToSs(zpk: Zpk): StateSpace {
  * formed by a product, not a subtraction, so it keeps its digits when Φ ≈ I.
  * C and D are unchanged.
  */
-export function zohSs(ss: StateSpace, periodSec: number): { phi: Float64Array; gamma: Float64Array; phiMinusI: Float64Array } {
+export function zohSs(ss: StateSpace, periodSec: number): { phi: number[]; gamma: number[]; phiMinusI: number[] } {
   const n = ss.n;
   const size = 2 * n + 1;
-  const m = new Float64Array(size * size);
+  const m = zeros(size * size);
   for (let i = 0; i < n; i++) {
     for (let j = 0; j < n; j++) m[i * size + j] = ss.a[i * n + j] * periodSec;
     m[i * size + n] = ss.b[i] * periodSec;
     m[i * size + n + 1 + i] = periodSec;
   }
   const e = expm(m, size);
-  const phi = new Float64Array(n * n);
-  const gamma = new Float64Array(n);
-  const psi = new Float64Array(n * n);
+  const phi = zeros(n * n);
+  const gamma = zeros(n);
+  const psi = zeros(n * n);
   for (let i = 0; i < n; i++) {
     for (let j = 0; j < n; j++) {
       phi[i * n + j] = e[i * size + j];
@@ -157,5 +157,12 @@ export function zohSs(ss: StateSpace, periodSec: number): { phi: Float64Array; g
     }
     gamma[i] = e[i * size + n];
   }
-  return { phi, gamma, phiMinusI: matMul(ss.a, psi, n) };
+  const phiMinusI = zeros(n * n);
+  matMulInto(phiMinusI, ss.a, psi, n);
+  return { phi, gamma, phiMinusI };
+}
+
+/** A plain array of k zeros (plain arrays: small typed arrays cost more to allocate). */
+function zeros(k: number): number[] {
+  return new Array<number>(k).fill(0);
 }

@@ -258,7 +258,7 @@ function run(req: DiscretizeRequest): DiscretizeResponse {
     const horizon = stepHorizon(cl.poles, T);
     const nc = Math.min(1000, 4 * horizon.steps);
     const h = (horizon.steps * T) / nc;
-    const y = stable ? continuousStep(clZpk, h, nc) : new Float64Array(0);
+    const y = stable ? continuousStep(clZpk, h, nc) : [];
     const fv = stable ? continuousDcGain(clZpk) : null;
     // figures of the whole simulation; the window shown is known only from its settling time
     const full = uniformStep(y, y.length, h, fv, 0, MAX_STEP_POINTS);
@@ -412,7 +412,7 @@ const MAX_STEP_SAMPLES = 2000;
 const MAX_STEP_POINTS = 400;
 
 /** Metrics on the full simulation; the arrays sent are thinned to ≤ MAX_STEP_POINTS (last point kept). */
-function stepOut(y: Float64Array, h: number, finalValue: number | null): StepResponse {
+function stepOut(y: number[], h: number, finalValue: number | null): StepResponse {
   return uniformStep(y, y.length, h, finalValue, y.length, MAX_STEP_POINTS);
 }
 
@@ -452,7 +452,7 @@ function discreteLoop(
   const crossings = findCrossings(le, grid);
   const clZpk: Zpk = { zeros: loopZpk.zeros, poles: cl.poles, gain: loopZpk.gain / cl.lead };
   const dc = stab.stable ? discreteDcGain(clZpk) : null;
-  let step = stepOut(stab.stable ? discreteStep(clZpk, steps) : new Float64Array(0), T, dc);
+  let step = stepOut(stab.stable ? discreteStep(clZpk, steps) : [], T, dc);
   if (stab.stable && step.settlingTimeSec === null && maxSteps > steps) step = stepOut(discreteStep(clZpk, maxSteps), T, dc);
   return {
     closedLoopPoles: cl.poles.map((z, i) => rootInfo(z, zToS(z, T), origin[i])),

@@ -171,9 +171,7 @@ function evalInto(e: Evaluator, xr: number, xi: number): void {
     mag2 /= dr * dr + di * di;
     ph -= Math.atan2(di, dr);
   }
-  let db = (10 / Math.LN10) * Math.log(mag2);
-  if (!Number.isFinite(db) || mag2 === 0) db = logSumDb(e, { re: xr, im: xi });
-  outDb = Number.isFinite(db) ? Math.max(MIN_DB, db) : db > 0 ? -MIN_DB : MIN_DB;
+  outDb = dbOf(e, mag2, xr, xi);
   outDeg = ph * DEG;
 }
 
@@ -191,16 +189,68 @@ export interface Response {
 }
 
 export function continuousResponse(hIn: Zpk, omegas: number[]): Response {
-  const h = evaluator(hIn);
-  const n = omegas.length;
+  return gridResponse(evaluator(hIn), null, omegas);
+}
+
+// Per-point accumulators of gridResponse (module scratch, grown as needed).
+let accMag2 = new Float64Array(512);
+let accPh = new Float64Array(512);
+
+/**
+ * Magnitude (dB) and phase (deg) of a zpk at the points x = xr[i] + j·xi[i] (xr null: 0),
+ * every point exactly as responseAt evaluates it (the same products, sums and fallbacks,
+ * per point in the same order), but computed one root at a time over all the points:
+ * the tight per-root loops of atan2 are what a response costs.
+ */
+function gridResponse(e: Evaluator, xr: ArrayLike<number> | null, xi: ArrayLike<number>): Response {
+  const n = xi.length;
+  if (accMag2.length < n) {
+    accMag2 = new Float64Array(n);
+    accPh = new Float64Array(n);
+  }
+  const mag2 = accMag2;
+  const ph = accPh;
+  const k2 = e.k * e.k;
+  const ph0 = e.k < 0 ? Math.PI : 0;
+  for (let i = 0; i < n; i++) {
+    mag2[i] = k2;
+    ph[i] = ph0;
+  }
+  const { zr, zi, pr, pi } = e;
+  for (let r = 0; r < zr.length; r++) {
+    const ar = zr[r];
+    const ai = zi[r];
+    for (let i = 0; i < n; i++) {
+      const dr = (xr ? xr[i] : 0) - ar;
+      const di = xi[i] - ai;
+      mag2[i] *= dr * dr + di * di;
+      ph[i] += Math.atan2(di, dr);
+    }
+  }
+  for (let r = 0; r < pr.length; r++) {
+    const ar = pr[r];
+    const ai = pi[r];
+    for (let i = 0; i < n; i++) {
+      const dr = (xr ? xr[i] : 0) - ar;
+      const di = xi[i] - ai;
+      mag2[i] /= dr * dr + di * di;
+      ph[i] -= Math.atan2(di, dr);
+    }
+  }
   const magnitudeDb = new Array<number>(n);
   const phaseDeg = new Array<number>(n);
   for (let i = 0; i < n; i++) {
-    evalInto(h, 0, omegas[i]);
-    magnitudeDb[i] = outDb;
-    phaseDeg[i] = outDeg;
+    magnitudeDb[i] = dbOf(e, mag2[i], xr ? xr[i] : 0, xi[i]);
+    phaseDeg[i] = ph[i] * DEG;
   }
   return { magnitudeDb, phaseDeg };
+}
+
+/** The dB value of evalInto from |H|² at x (the log-sum form where |H|² under- or overflows), floored at MIN_DB. */
+function dbOf(e: Evaluator, mag2: number, xr: number, xi: number): number {
+  let db = (10 / Math.LN10) * Math.log(mag2);
+  if (!Number.isFinite(db) || mag2 === 0) db = logSumDb(e, { re: xr, im: xi });
+  return Number.isFinite(db) ? Math.max(MIN_DB, db) : db > 0 ? -MIN_DB : MIN_DB;
 }
 
 /** The points e^{jωT} of a frequency grid (shared by every method at one sample period). */
@@ -224,16 +274,8 @@ export function unitCircleGrid(omegas: readonly number[], periodSec: number): Un
 export function discreteResponse(hIn: Zpk | Evaluator, omegas: number[] | UnitCircleGrid, periodSec: number, reference?: Response): Response & { shiftDeg: number } {
   const h = 'k' in hIn ? hIn : evaluator(hIn);
   const g = Array.isArray(omegas) ? unitCircleGrid(omegas, periodSec) : omegas;
-  const gr = g.re;
-  const gi = g.im;
-  const n = gr.length;
-  const magnitudeDb = new Array<number>(n);
-  const phaseDeg = new Array<number>(n);
-  for (let i = 0; i < n; i++) {
-    evalInto(h, gr[i], gi[i]);
-    magnitudeDb[i] = outDb;
-    phaseDeg[i] = outDeg;
-  }
+  const { magnitudeDb, phaseDeg } = gridResponse(h, g.re, g.im);
+  const n = phaseDeg.length;
   let shiftDeg = 0;
   if (reference && n) shiftDeg = 360 * Math.round((reference.phaseDeg[0] - phaseDeg[0]) / 360);
   if (shiftDeg !== 0) for (let i = 0; i < n; i++) phaseDeg[i] += shiftDeg;

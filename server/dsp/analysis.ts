@@ -1,5 +1,5 @@
 import type { Margins, RootInfo, StepResponse } from '../../schemas/discretize';
-import { abs, cx, hypot as complexHypot, log1p, sub } from './complex';
+import { cx, hypot as complexHypot } from './complex';
 import { evalZpk } from './lti';
 import { polyAdd, polyRoots, trimLeading } from './poly';
 import { zohSs, zpkToSs } from './realization';
@@ -25,28 +25,28 @@ const r = (c: Complex): Complex => ({ re: c.re, im: c.im });
 /** s = ln(z)/T, via log1p(z − 1) so roots near z = 1 keep their digits. Null for z = 0. */
 export function zToS(z: Complex, periodSec: number): Complex | null {
   if (z.re === 0 && z.im === 0) return null;
-  const l = log1p(sub(z, cx(1)));
-  return { re: l.re / periodSec, im: l.im / periodSec };
-}
-
-function dampingAndFreq(s: Complex | null): { zeta: number | null; wn: number | null } {
-  if (!s) return { zeta: null, wn: null };
-  const wn = abs(s);
-  return { zeta: wn === 0 ? null : -s.re / wn, wn };
+  // log1p(w) with w = z − 1: ½·log1p(2 Re w + |w|²) + j·atan2(Im w, 1 + Re w) (complex.ts log1p)
+  const wr = z.re - 1;
+  const wi = z.im - 0;
+  const t = 2 * wr + wr * wr + wi * wi;
+  return { re: (0.5 * Math.log1p(t)) / periodSec, im: Math.atan2(wi, 1 + wr) / periodSec };
 }
 
 /** RootInfo of a continuous root s (z = null) or of a discrete root z with its origin. */
 export function rootInfo(z: Complex | null, s: Complex | null, continuous: Complex | null): RootInfo {
-  const { zeta, wn } = dampingAndFreq(s);
-  const c = dampingAndFreq(continuous);
+  // damping ratio ζ = −Re s/|s| and natural frequency ωn = |s|, of s and of its origin
+  const wn = s ? hypot(s.re, s.im) : null;
+  const zeta = s && wn !== 0 ? -s.re / (wn as number) : null;
+  const cWn = continuous ? hypot(continuous.re, continuous.im) : null;
+  const cZeta = continuous && cWn !== 0 ? -continuous.re / (cWn as number) : null;
   return {
     z: z && r(z),
     s: s && r(s),
     dampingRatio: zeta,
     naturalFreqRadPerSec: wn,
     continuous: continuous && r(continuous),
-    naturalFreqDriftPercent: wn !== null && c.wn !== null && c.wn > 0 ? (100 * (wn - c.wn)) / c.wn : null,
-    dampingRatioDrift: zeta !== null && c.zeta !== null ? zeta - c.zeta : null,
+    naturalFreqDriftPercent: wn !== null && cWn !== null && cWn > 0 ? (100 * (wn - cWn)) / cWn : null,
+    dampingRatioDrift: zeta !== null && cZeta !== null ? zeta - cZeta : null,
   };
 }
 
@@ -55,33 +55,47 @@ export function rootInfo(z: Complex | null, s: Complex | null, continuous: Compl
  * where the method maps roots one to one (`byIndex`), else greedily by distance to e^{sT}.
  */
 export function pairRoots(discrete: Complex[], continuous: Complex[], periodSec: number, byIndex: boolean): (Complex | null)[] {
-  if (byIndex) return discrete.map((_, i) => continuous[i] ?? null);
-  const out: (Complex | null)[] = discrete.map(() => null);
-  const used = new Array<boolean>(discrete.length).fill(false);
-  const mapped = continuous.map((s) => ({ s, z: expT(s, periodSec) }));
-  // nearest pairs first
-  const cand: Array<[number, number, number]> = [];
-  mapped.forEach((m, ci) => discrete.forEach((d, di) => cand.push([abs(sub(d, m.z)), ci, di])));
-  cand.sort((a, b) => a[0] - b[0]);
-  const cUsed = new Array<boolean>(continuous.length).fill(false);
-  for (const [dist, ci, di] of cand) {
-    if (cUsed[ci] || used[di] || dist > 0.5) continue;
+  const nd = discrete.length;
+  const nc = continuous.length;
+  const out: (Complex | null)[] = new Array(nd);
+  if (byIndex) {
+    for (let i = 0; i < nd; i++) out[i] = continuous[i] ?? null;
+    return out;
+  }
+  for (let i = 0; i < nd; i++) out[i] = null;
+  // candidate (ci, di) at index ci·nd + di: distance from discrete root di to e^{s_ci·T}
+  const dist = new Array<number>(nc * nd);
+  const order = new Array<number>(nc * nd);
+  for (let ci = 0; ci < nc; ci++) {
+    const sc = continuous[ci];
+    const m = Math.exp(sc.re * periodSec);
+    const er = m * Math.cos(sc.im * periodSec);
+    const ei = m * Math.sin(sc.im * periodSec);
+    for (let di = 0; di < nd; di++) {
+      dist[ci * nd + di] = hypot(discrete[di].re - er, discrete[di].im - ei);
+      order[ci * nd + di] = ci * nd + di;
+    }
+  }
+  // nearest pairs first (a stable sort: ties keep the order above)
+  order.sort((a, b) => dist[a] - dist[b]);
+  const used = new Array<boolean>(nd).fill(false);
+  const cUsed = new Array<boolean>(nc).fill(false);
+  for (let k = 0; k < order.length; k++) {
+    const idx = order[k];
+    const ci = Math.floor(idx / nd);
+    const di = idx - ci * nd;
+    if (cUsed[ci] || used[di] || dist[idx] > 0.5) continue;
     cUsed[ci] = used[di] = true;
-    out[di] = mapped[ci].s;
+    out[di] = continuous[ci];
   }
   return out;
 }
 
-const expT = (s: Complex, T: number): Complex => {
-  const m = Math.exp(s.re * T);
-  return { re: m * Math.cos(s.im * T), im: m * Math.sin(s.im * T) };
-};
-
 export function discreteStability(poles: Complex[]): { stable: boolean; marginal: boolean } {
   let outside = false;
   let on = false;
-  for (const p of poles) {
-    const m = abs(p);
+  for (let i = 0; i < poles.length; i++) {
+    const m = hypot(poles[i].re, poles[i].im);
     if (m > 1 + UNIT_CIRCLE_TOL) outside = true;
     else if (m >= 1 - UNIT_CIRCLE_TOL) on = true;
   }

@@ -279,7 +279,7 @@ function run(req: DiscretizeRequest): DiscretizeResponse {
       step: shownStep,
     };
     // Common practice: sample 10–30× the closed-loop bandwidth; warn below 10×.
-    const bw = closedLoopBandwidthRad(loopZpk, wLo, wHi);
+    const bw = closedLoopBandwidthRad(le, wLo, wHi);
     if (bw !== null && fs < (10 * bw) / (2 * Math.PI)) {
       warnings.push({
         code: 'rate-low-for-bandwidth',
@@ -416,13 +416,21 @@ function stepOut(y: number[], h: number, finalValue: number | null): StepRespons
   return uniformStep(y, y.length, h, finalValue, y.length, MAX_STEP_POINTS);
 }
 
-/** −3 dB bandwidth of the continuous closed loop L/(1 + L), rad/s; null when none is found. */
-function closedLoopBandwidthRad(loop: Zpk, lo: number, hi: number): number | null {
-  const ws = logGrid(lo, hi, 200);
-  const e = evaluator(loop);
-  const t0 = closedLoopMagnitudeAt(e, ws[0]);
+/**
+ * −3 dB bandwidth of the continuous closed loop L/(1 + L), rad/s (`loop`: L's evaluator);
+ * null when none is found. Scans the 200-point log grid of logGrid(lo, hi, 200) upwards,
+ * each point computed only when reached.
+ */
+function closedLoopBandwidthRad(loop: Evaluator, lo: number, hi: number): number | null {
+  const n = 200;
+  const a = Math.log(lo);
+  const step = (Math.log(hi) - a) / (n - 1);
+  const t0 = closedLoopMagnitudeAt(loop, lo);
   if (!(t0 > 0) || !Number.isFinite(t0)) return null;
-  for (let i = 0; i < ws.length; i++) if (closedLoopMagnitudeAt(e, ws[i]) < t0 / Math.SQRT2) return ws[i];
+  for (let i = 0; i < n; i++) {
+    const w = i === 0 ? lo : i === n - 1 ? hi : Math.exp(a + step * i);
+    if (closedLoopMagnitudeAt(loop, w) < t0 / Math.SQRT2) return w;
+  }
   return null;
 }
 

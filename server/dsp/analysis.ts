@@ -394,60 +394,127 @@ function bisectCrossing(e: Evaluator, T: number | null, a: number, b: number, mo
   return Math.exp((x0 * f1 - x1 * f0) / (f1 - f0));
 }
 
-// Grid values of findCrossings (module scratch, grown as needed): |L| as the ratio of the
-// products (NaN where they under- or overflowed), ln|L| (NaN until needed, except at those
-// points), and the unwrapped phase (rad).
-let gridRatio = new Float64Array(512);
-let gridLn = new Float64Array(512);
-let gridPh = new Float64Array(512);
+// Grid values of findCrossings (module scratch, grown as needed): the products
+// v = K·Π(x − zᵢ) and q = Π(x − pᵢ) at every point, the sign of ln|L| (+1, −1 or 0),
+// ln|L| (NaN until needed, except at fallback points), and the unwrapped phase (rad).
+let gVr = new Float64Array(512);
+let gVi = new Float64Array(512);
+let gQr = new Float64Array(512);
+let gQi = new Float64Array(512);
+let gSign = new Float64Array(512);
+let gLn = new Float64Array(512);
+let gPh = new Float64Array(512);
 
-/** ln|L| at grid point i (taken from the ratio only when first needed). */
+/** ln|L| at grid point i, as lnMagPhaseInto takes it (log of |v|/|q|), computed when first needed. */
 function gridLnAt(i: number): number {
-  let v = gridLn[i];
-  if (v !== v) v = gridLn[i] = Math.log(gridRatio[i]); // eslint-disable-line no-self-compare
+  let v = gLn[i];
+  if (v !== v) v = gLn[i] = Math.log(hypot(gVr[i], gVi[i]) / hypot(gQr[i], gQi[i])); // eslint-disable-line no-self-compare
   return v;
 }
 
-/** Sign of ln|L| at grid point i: of ratio − 1 (ln is 0 exactly at 1 and has the sign of x − 1), or of ln|L| itself. */
-function gridLnSign(i: number): number {
-  const m = gridRatio[i];
-  if (m !== m) return Math.sign(gridLn[i]); // eslint-disable-line no-self-compare
-  return m > 1 ? 1 : m < 1 ? -1 : 0;
-}
+/**
+ * Squared magnitudes strictly between these bounds give |v|/|q| finite and positive (no
+ * fallback to the log-sum form) whatever the rounding.
+ */
+const SQ_LO = 1e-290;
+const SQ_HI = 1e290;
+/**
+ * |v|² and |q|² further apart than this relative margin decide the sign of |v|/|q| − 1
+ * (their rounding, and that of the hypot quotient, is some 1e-15 relative).
+ */
+const SQ_MARGIN = 1e-12;
 
 /**
  * All gain and phase crossovers of a zpk loop on a crossing grid: dense evaluation on
  * the grid, then regula falsi on log ω (DESIGN.md lessons: dense evaluation, then
- * refine). ln|L| and the phase (radians, any branch) come from lnMagPhaseInto; the grid
- * phase is unwrapped. ln|L| is needed on the grid only for its sign, which is that of
- * |L| − 1, so the logarithm is taken only at the points where it is used.
+ * refine). ln|L| and the phase (radians, any branch) are those of lnMagPhaseInto; the
+ * grid phase is unwrapped. On the grid ln|L| is needed only for its sign, that of
+ * |v|² − |q|² where these are clearly apart (else of |v|/|q| − 1 as computed), so the
+ * magnitudes and the logarithm are taken only at the points where they are used. The
+ * products are formed one root at a time over all points (the same products per point).
  */
 export function findCrossings(e: Evaluator, grid: CrossingGrid): Crossings {
   const { ws, xr, xi, periodSec: T } = grid;
   const n = ws.length;
   const hi = ws[n - 1];
-  if (gridRatio.length < n) {
-    gridRatio = new Float64Array(n);
-    gridLn = new Float64Array(n);
-    gridPh = new Float64Array(n);
+  if (gVr.length < n) {
+    gVr = new Float64Array(n);
+    gVi = new Float64Array(n);
+    gQr = new Float64Array(n);
+    gQi = new Float64Array(n);
+    gSign = new Float64Array(n);
+    gLn = new Float64Array(n);
+    gPh = new Float64Array(n);
   }
-  const ratio = gridRatio;
-  const lns = gridLn;
-  const phs = gridPh;
+  const vr = gVr;
+  const vi = gVi;
+  const qr = gQr;
+  const qi = gQi;
+  const sign = gSign;
+  const lns = gLn;
+  const phs = gPh;
   for (let i = 0; i < n; i++) {
-    lnMagPhaseInto(e, xr[i], xi[i], WANT_PHASE | WANT_RATIO);
-    ratio[i] = lmRatio;
-    lns[i] = lmRatio === lmRatio ? NaN : lmLn; // eslint-disable-line no-self-compare
-    const prev = i > 0 ? phs[i - 1] : lmPh;
-    phs[i] = prev + wrapPi(lmPh - prev);
+    vr[i] = e.k;
+    vi[i] = 0;
+    qr[i] = 1;
+    qi[i] = 0;
+  }
+  for (let r = 0; r < e.zr.length; r++) {
+    const ar = e.zr[r];
+    const ai = e.zi[r];
+    for (let i = 0; i < n; i++) {
+      const dr = xr[i] - ar;
+      const di = xi[i] - ai;
+      const t = vr[i] * dr - vi[i] * di;
+      vi[i] = vr[i] * di + vi[i] * dr;
+      vr[i] = t;
+    }
+  }
+  for (let r = 0; r < e.pr.length; r++) {
+    const ar = e.pr[r];
+    const ai = e.pi[r];
+    for (let i = 0; i < n; i++) {
+      const dr = xr[i] - ar;
+      const di = xi[i] - ai;
+      const t = qr[i] * dr - qi[i] * di;
+      qi[i] = qr[i] * di + qi[i] * dr;
+      qr[i] = t;
+    }
+  }
+  for (let i = 0; i < n; i++) {
+    const sv = vr[i] * vr[i] + vi[i] * vi[i];
+    const sq = qr[i] * qr[i] + qi[i] * qi[i];
+    let ph: number;
+    lns[i] = NaN;
+    if (sv > SQ_LO && sv < SQ_HI && sq > SQ_LO && sq < SQ_HI) {
+      if (sv > sq * (1 + SQ_MARGIN)) sign[i] = 1;
+      else if (sv < sq * (1 - SQ_MARGIN)) sign[i] = -1;
+      else {
+        const m = hypot(vr[i], vi[i]) / hypot(qr[i], qi[i]);
+        sign[i] = m > 1 ? 1 : m < 1 ? -1 : 0;
+      }
+      ph = Math.atan2(vi[i], vr[i]) - Math.atan2(qi[i], qr[i]);
+    } else {
+      // as lnMagPhaseInto, including its fallback to the log-sum form
+      const m = hypot(vr[i], vi[i]) / hypot(qr[i], qi[i]);
+      if (!(m > 0) || !Number.isFinite(m)) {
+        evalInto(e, xr[i], xi[i]);
+        lns[i] = (outDb * Math.LN10) / 20;
+        sign[i] = Math.sign(lns[i]);
+        ph = outDeg / DEG;
+      } else {
+        sign[i] = m > 1 ? 1 : m < 1 ? -1 : 0;
+        ph = Math.atan2(vi[i], vr[i]) - Math.atan2(qi[i], qr[i]);
+      }
+    }
+    const prev = i > 0 ? phs[i - 1] : ph;
+    phs[i] = prev + wrapPi(ph - prev);
   }
   const out: Crossings = { gain: [], phase: [] };
-  let sNext = gridLnSign(0);
   for (let i = 0; i + 1 < n; i++) {
-    const sHere = sNext;
-    sNext = gridLnSign(i + 1);
-    if (sHere === 0 || sHere !== sNext) {
-      if (sHere === 0 && i > 0 && gridLnSign(i - 1) === 0) continue;
+    const sHere = sign[i];
+    if (sHere === 0 || sHere !== sign[i + 1]) {
+      if (sHere === 0 && i > 0 && sign[i - 1] === 0) continue;
       const w = sHere === 0 ? ws[i] : bisectCrossing(e, T, ws[i], ws[i + 1], 0, gridLnAt(i), gridLnAt(i + 1), 0, 0);
       const ph = phaseNear(e, T, w, phs[i]);
       out.gain.push({ omega: w, phaseMarginDeg: wrap180(180 + ph * DEG) });
@@ -496,18 +563,11 @@ export function lnMagPhase(e: Evaluator, xr: number, xi: number): { lnMag: numbe
 const WANT_MAG = 1;
 const WANT_PHASE = 2;
 const WANT_BOTH = 3;
-/** |L| as the ratio of the products, in lmRatio, instead of its logarithm. */
-const WANT_RATIO = 4;
 // Results of lnMagPhaseInto (module scratch: the grid loops allocate nothing per point).
 let lmLn = 0;
 let lmPh = 0;
-let lmRatio = NaN;
 
-/**
- * lnMagPhase into lmLn / lmPh; only the parts in `want` (the other is left 0). With
- * WANT_RATIO, |L| goes to lmRatio instead (lmLn left 0), except where the products under-
- * or overflow: there lmRatio is NaN and lmLn holds ln|L| from the log-sum form.
- */
+/** lnMagPhase into lmLn / lmPh; only the parts in `want` (the other is left 0). */
 function lnMagPhaseInto(e: Evaluator, xr: number, xi: number, want: number): void {
   const { zr, zi, pr, pi } = e;
   let vr = e.k;
@@ -534,10 +594,8 @@ function lnMagPhaseInto(e: Evaluator, xr: number, xi: number, want: number): voi
     evalInto(e, xr, xi);
     lmLn = (outDb * Math.LN10) / 20;
     lmPh = outDeg / DEG;
-    lmRatio = NaN;
     return;
   }
-  lmRatio = want & WANT_RATIO ? m : NaN;
   lmLn = want & WANT_MAG ? Math.log(m) : 0;
   lmPh = want & WANT_PHASE ? Math.atan2(vi, vr) - Math.atan2(qi, qr) : 0;
 }

@@ -611,6 +611,46 @@ export function closedLoopMagnitudeAt(e: Evaluator, w: number): number {
   return m / hypot(1 + m * Math.cos(ph), m * Math.sin(ph));
 }
 
+/**
+ * closedLoopMagnitudeAt(e, w) < limit, decided without the logarithm, exponential and
+ * trigonometry where the answer is clear: with L = v/q (the same products),
+ * |T|² = |v|²/|v + q|², whose rounding (a few ulp) and that of the value
+ * closedLoopMagnitudeAt computes (below 1e-9 relative while |L| ≤ 1000·|1 + L| and
+ * nothing under- or overflows) cannot change a comparison more than 1e-9 from the limit.
+ * Elsewhere the value itself is computed and compared.
+ */
+export function closedLoopBelow(e: Evaluator, w: number, limit: number): boolean {
+  const { zr, zi, pr, pi } = e;
+  let vr = e.k;
+  let vi = 0;
+  for (let i = 0; i < zr.length; i++) {
+    const dr = 0 - zr[i];
+    const di = w - zi[i];
+    const t = vr * dr - vi * di;
+    vi = vr * di + vi * dr;
+    vr = t;
+  }
+  let qr = 1;
+  let qi = 0;
+  for (let i = 0; i < pr.length; i++) {
+    const dr = 0 - pr[i];
+    const di = w - pi[i];
+    const t = qr * dr - qi * di;
+    qi = qr * di + qi * dr;
+    qr = t;
+  }
+  const sv = vr * vr + vi * vi;
+  const sq = qr * qr + qi * qi;
+  const sw = (vr + qr) * (vr + qr) + (vi + qi) * (vi + qi);
+  const lim2 = limit * limit;
+  if (sv > SQ_LO && sv < SQ_HI && sq > SQ_LO && sq < SQ_HI && sw > SQ_LO && sw < SQ_HI && sv <= 1e6 * sw && lim2 > SQ_LO && lim2 < SQ_HI) {
+    const t2 = sv / sw;
+    if (t2 < lim2 * (1 - 1e-9)) return true;
+    if (t2 > lim2 * (1 + 1e-9)) return false;
+  }
+  return closedLoopMagnitudeAt(e, w) < limit;
+}
+
 // ------------------------------------------------------------------ loops and steps
 
 /** Closed-loop characteristic polynomial den·z^d + num (descending), and its roots. */

@@ -23,6 +23,7 @@ import {
   discreteStep,
   evaluator,
   findCrossings,
+  closedLoopBelow,
   closedLoopMagnitudeAt,
   logGrid,
   pairRoots,
@@ -429,7 +430,7 @@ function closedLoopBandwidthRad(loop: Evaluator, lo: number, hi: number): number
   if (!(t0 > 0) || !Number.isFinite(t0)) return null;
   for (let i = 0; i < n; i++) {
     const w = i === 0 ? lo : i === n - 1 ? hi : Math.exp(a + step * i);
-    if (closedLoopMagnitudeAt(loop, w) < t0 / Math.SQRT2) return w;
+    if (closedLoopBelow(loop, w, t0 / Math.SQRT2)) return w;
   }
   return null;
 }

@@ -30,8 +30,6 @@ export interface DiscreteResult {
   dcGain?: number | null;
 }
 
-const realPart = (c: Complex) => c.re;
-
 /**
  * Generalized bilinear map s = c·(z − 1)/(z + 1): each root r → (c + r)/(c − r), each zero
  * at infinity → z = −1, gain K·Π(c − zᵢ)/Π(c − pᵢ) (from s − r = (c − r)(z − (c + r)/(c − r))/(z + 1)).
@@ -39,16 +37,16 @@ const realPart = (c: Complex) => c.re;
  */
 export function bilinearZpk(cont: Zpk, c: number): Zpk {
   const cc = cx(c);
-  const map = (r: Complex) => div(cx(c + r.re, r.im), sub(cc, r));
   let g = cx(cont.gain);
   for (const z of cont.zeros) g = mul(g, sub(cc, z));
   for (const p of cont.poles) g = div(g, sub(cc, p));
-  const extra = cont.poles.length - cont.zeros.length;
-  return {
-    zeros: [...cont.zeros.map(map), ...Array.from({ length: extra }, () => cx(-1))],
-    poles: cont.poles.map(map),
-    gain: realPart(g),
-  };
+  const zeros: Complex[] = [];
+  const poles: Complex[] = [];
+  // r → (c + r)/(c − r); zeros at infinity → −1
+  for (const r of cont.zeros) zeros.push(div(cx(c + r.re, r.im), sub(cc, r)));
+  for (let k = cont.zeros.length; k < cont.poles.length; k++) zeros.push(cx(-1));
+  for (const r of cont.poles) poles.push(div(cx(c + r.re, r.im), sub(cc, r)));
+  return { zeros, poles, gain: g.re };
 }
 
 /**
@@ -58,16 +56,16 @@ export function bilinearZpk(cont: Zpk, c: number): Zpk {
 export function backwardEulerZpk(cont: Zpk, periodSec: number): Zpk {
   const T = periodSec;
   const one = cx(1);
-  const f = (r: Complex) => sub(one, scale(r, T));
   let g = cx(cont.gain * Math.pow(T, cont.poles.length - cont.zeros.length));
-  for (const z of cont.zeros) g = mul(g, f(z));
-  for (const p of cont.poles) g = div(g, f(p));
-  const extra = cont.poles.length - cont.zeros.length;
-  return {
-    zeros: [...cont.zeros.map((r) => div(one, f(r))), ...Array.from({ length: extra }, () => cx(0))],
-    poles: cont.poles.map((r) => div(one, f(r))),
-    gain: realPart(g),
-  };
+  for (const z of cont.zeros) g = mul(g, sub(one, scale(z, T)));
+  for (const p of cont.poles) g = div(g, sub(one, scale(p, T)));
+  const zeros: Complex[] = [];
+  const poles: Complex[] = [];
+  // r → 1/(1 − rT); zeros at infinity → 0
+  for (const r of cont.zeros) zeros.push(div(one, sub(one, scale(r, T))));
+  for (let k = cont.zeros.length; k < cont.poles.length; k++) zeros.push(cx(0));
+  for (const r of cont.poles) poles.push(div(one, sub(one, scale(r, T))));
+  return { zeros, poles, gain: g.re };
 }
 
 /** True when a root lies exactly at s = 0. */
@@ -89,7 +87,7 @@ export function matchedZpk(cont: Zpk, periodSec: number, prewarpRadPerSec?: numb
     let g = cx(cont.gain / Math.pow(2, extra));
     for (const z of cont.zeros) g = mul(g, div(z, expm1(scale(z, T))));
     for (const p of cont.poles) g = mul(g, div(expm1(scale(p, T)), p));
-    return { ...unit, gain: realPart(g) };
+    return { ...unit, gain: g.re };
   }
   const w0 = prewarpRadPerSec;
   if (w0 === undefined || !(w0 > 0) || !Number.isFinite(w0)) {

@@ -1,5 +1,5 @@
 import { PACKED_ENCODING, type PackedSeries } from '../../schemas/series';
-import type { DiscretizeResponse, DiscretizeResponseWire, LoopResult, MethodName, StepResponse } from '../../schemas/discretize';
+import type { DiscretizeResponse, DiscretizeResponseWire, MethodName } from '../../schemas/discretize';
 
 /**
  * Writing the long series of a compute answer packed (schemas/series.ts): the doubles as
@@ -9,6 +9,10 @@ import type { DiscretizeResponse, DiscretizeResponseWire, LoopResult, MethodName
 const LITTLE_ENDIAN = new Uint8Array(new Float64Array([1]).buffer)[7] === 0x3f;
 
 export function packSeries(values: ArrayLike<number>): PackedSeries {
+  return { encoding: PACKED_ENCODING, count: values.length, data: base64Doubles(values) };
+}
+
+function base64Doubles(values: ArrayLike<number>): string {
   const n = values.length;
   const f = new Float64Array(n);
   if (LITTLE_ENDIAN) {
@@ -17,38 +21,49 @@ export function packSeries(values: ArrayLike<number>): PackedSeries {
     const view = new DataView(f.buffer);
     for (let i = 0; i < n; i++) view.setFloat64(8 * i, values[i], true);
   }
-  return { encoding: PACKED_ENCODING, count: n, data: Buffer.from(f.buffer, f.byteOffset, f.byteLength).toString('base64') };
+  return Buffer.from(f.buffer, f.byteOffset, f.byteLength).toString('base64');
 }
 
-type LoopWire = NonNullable<DiscretizeResponseWire['continuousLoop']>;
-
-function packStep(s: StepResponse): LoopWire['step'] {
-  return { ...s, timeSec: packSeries(s.timeSec), output: packSeries(s.output) };
-}
-
-function packLoop(l: LoopResult): LoopWire {
-  return { ...l, step: packStep(l.step) };
-}
-
-/** The same answer with every series packed: the frequency grid, the Bode curves and the step responses. */
-export function packAnswer(res: DiscretizeResponse): DiscretizeResponseWire {
-  const methods: DiscretizeResponseWire['methods'] = {};
+/**
+ * The answer with every series — the frequency grid, the Bode curves and the step
+ * responses — replaced by `leaf(series)`; everything else as it is.
+ */
+function mapSeries<S>(res: DiscretizeResponse, leaf: (v: number[]) => S) {
+  const step = <T extends { timeSec: number[]; output: number[] }>(s: T) => ({ ...s, timeSec: leaf(s.timeSec), output: leaf(s.output) });
+  const response = (r: { magnitudeDb: number[]; phaseDeg: number[] }) => ({ magnitudeDb: leaf(r.magnitudeDb), phaseDeg: leaf(r.phaseDeg) });
+  const methods: Record<string, unknown> = {};
   for (const name of Object.keys(res.methods) as MethodName[]) {
     const m = res.methods[name]!;
-    methods[name] = {
-      ...m,
-      response: { magnitudeDb: packSeries(m.response.magnitudeDb), phaseDeg: packSeries(m.response.phaseDeg) },
-      ...(m.loop ? { loop: packLoop(m.loop) } : {}),
-    };
+    methods[name] = { ...m, response: response(m.response), ...(m.loop ? { loop: { ...m.loop, step: step(m.loop.step) } } : {}) };
   }
   return {
     ...res,
-    frequencyHz: packSeries(res.frequencyHz),
-    continuous: {
-      ...res.continuous,
-      response: { magnitudeDb: packSeries(res.continuous.response.magnitudeDb), phaseDeg: packSeries(res.continuous.response.phaseDeg) },
-    },
+    frequencyHz: leaf(res.frequencyHz),
+    continuous: { ...res.continuous, response: response(res.continuous.response) },
     methods,
-    ...(res.continuousLoop ? { continuousLoop: packLoop(res.continuousLoop) } : {}),
+    ...(res.continuousLoop ? { continuousLoop: { ...res.continuousLoop, step: step(res.continuousLoop.step) } } : {}),
   };
+}
+
+/** The same answer with every series packed. */
+export function packAnswer(res: DiscretizeResponse): DiscretizeResponseWire {
+  return mapSeries(res, packSeries) as DiscretizeResponseWire;
+}
+
+/**
+ * JSON text of packAnswer(res), written faster: the answer is serialised with a short
+ * marker in place of each series, and each marker is then replaced by the series' JSON
+ * text, so JSON.stringify never scans the ~100 KB of base64 (which needs no escaping).
+ * The text is the same, character for character, as JSON.stringify(packAnswer(res)).
+ */
+export function packedAnswerJson(res: DiscretizeResponse): string {
+  const texts: string[] = [];
+  const skeleton = JSON.stringify(
+    mapSeries(res, (v) => {
+      texts.push(`{"encoding":"${PACKED_ENCODING}","count":${v.length},"data":"${base64Doubles(v)}"}`);
+      // U+0002 never occurs in an answer; JSON.stringify writes it as the escape \u0002
+      return `\u0002${texts.length - 1}`;
+    }),
+  );
+  return skeleton.replace(/"\\u0002(\d+)"/g, (_m, i: string) => texts[Number(i)]!);
 }

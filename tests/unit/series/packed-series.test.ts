@@ -3,7 +3,9 @@
  * little-endian, in base64 (RFC 4648). The reference bytes are IEEE 754's encodings,
  * checked with Python's struct.pack('<d', …) and base64.b64encode.
  */
-import { packSeries } from '../../../server/http/packed-series';
+import { packAnswer, packedAnswerJson, packSeries } from '../../../server/http/packed-series';
+import { runDiscretize } from '../../../server/dsp';
+import { discretizeRequestSchema, discretizeResponseSchema } from '../../../schemas/discretize';
 import { packedSeriesSchema, seriesSchema, unpackSeries } from '../../../schemas/series';
 
 describe('packed series', () => {
@@ -44,5 +46,22 @@ describe('packed series', () => {
     expect(seriesSchema.safeParse({ ...p, count: 4 }).success).toBe(false);
     expect(seriesSchema.safeParse({ ...p, data: p.data.slice(0, 20) }).success).toBe(false);
     expect(packedSeriesSchema.safeParse({ ...p, encoding: 'float32le-base64' }).success).toBe(false);
+  });
+});
+
+describe('the packed answer as JSON text', () => {
+  // runDiscretize answers of a spread of designs (with and without a plant, every method)
+  const requests = [
+    { compensator: { form: 'zpk', zeros: [-3], poles: [-18], gain: 25 }, sampleRateHz: 250, prewarpHz: 1.2, plant: { form: 'tf', num: [8], den: [1, 5, 0] } },
+    { compensator: { form: 'zpk', zeros: [-0.6, -5], poles: [-0.15, -40], gain: 22 }, sampleRateHz: 400, prewarpHz: 2.2, responsePoints: 400, plant: { form: 'tf', num: [30], den: [1, 4.5, 0] }, delaySamples: 1 },
+    { compensator: { form: 'tf', num: [2, 6], den: [1, 5, 0] }, sampleRateHz: 100, prewarpHz: 3 },
+    { compensator: { form: 'zpk', zeros: [{ re: -2, im: 5 }, { re: -2, im: -5 }], poles: [-30, -40], gain: -4 }, sampleRateHz: 1000 },
+  ];
+  it.each(requests.map((r, i) => [i, r] as const))('is JSON.stringify(packAnswer(answer)) character for character (request %i)', (_i, body) => {
+    const answer = runDiscretize(discretizeRequestSchema.parse(body));
+    const text = packedAnswerJson(answer);
+    expect(text).toBe(JSON.stringify(packAnswer(answer)));
+    // and parses back to the very numbers of the answer
+    expect(discretizeResponseSchema.parse(JSON.parse(text))).toEqual(discretizeResponseSchema.parse(JSON.parse(JSON.stringify(answer))));
   });
 });

@@ -1,5 +1,5 @@
 import type { CompensatorInput, RootInput } from '../../schemas/compensator';
-import { cx, div, mul, sub } from './complex';
+import { cx } from './complex';
 import { polyFromRoots, polyRoots, trimLeading } from './poly';
 import type { Complex, DiscreteTf, Zpk } from './types';
 
@@ -36,10 +36,34 @@ export function zpkToDiscreteTf(zpk: Zpk): DiscreteTf {
 
 /** K·Π(x − zᵢ)/Π(x − pᵢ) at a complex point, in product form. */
 export function evalZpk(zpk: Zpk, x: Complex): Complex {
-  let v = cx(zpk.gain);
-  for (const z of zpk.zeros) v = mul(v, sub(x, z));
-  for (const p of zpk.poles) v = div(v, sub(x, p));
-  return v;
+  // complex.ts mul and div (Smith's algorithm) written out on scalars
+  let vr = zpk.gain;
+  let vi = 0;
+  for (let i = 0; i < zpk.zeros.length; i++) {
+    const dr = x.re - zpk.zeros[i].re;
+    const di = x.im - zpk.zeros[i].im;
+    const t = vr * dr - vi * di;
+    vi = vr * di + vi * dr;
+    vr = t;
+  }
+  for (let i = 0; i < zpk.poles.length; i++) {
+    const dr = x.re - zpk.poles[i].re;
+    const di = x.im - zpk.poles[i].im;
+    if (Math.abs(dr) >= Math.abs(di)) {
+      const r = di / dr;
+      const d = dr + di * r;
+      const t = (vr + vi * r) / d;
+      vi = (vi - vr * r) / d;
+      vr = t;
+    } else {
+      const r = dr / di;
+      const d = dr * r + di;
+      const t = (vr * r + vi) / d;
+      vi = (vi * r - vr) / d;
+      vr = t;
+    }
+  }
+  return { re: vr, im: vi };
 }
 
 /** Series connection of two zpk values (roots concatenated, gains multiplied). */

@@ -140,8 +140,14 @@ export function polyRoots(pIn: readonly number[]): Complex[] {
   const logSigma = (Math.log(Math.abs(p[n])) - Math.log(Math.abs(p[0]))) / n;
   const sigma = Math.exp(logSigma);
   const lead = Math.log(Math.abs(p[0]));
-  const q = p.map((c, i) => (c === 0 ? 0 : Math.sign(c) * Math.sign(p[0]) * Math.exp(Math.log(Math.abs(c)) - lead - i * logSigma)));
-  if (!Number.isFinite(sigma) || sigma === 0 || !q.every(Number.isFinite)) {
+  const q = new Array<number>(p.length);
+  let finite = true;
+  for (let i = 0; i < p.length; i++) {
+    const c = p[i];
+    q[i] = c === 0 ? 0 : Math.sign(c) * Math.sign(p[0]) * Math.exp(Math.log(Math.abs(c)) - lead - i * logSigma);
+    if (!Number.isFinite(q[i])) finite = false;
+  }
+  if (!Number.isFinite(sigma) || sigma === 0 || !finite) {
     throw new RangeError('polynomial coefficients span too wide a range to factor');
   }
   // companion matrix (row-major): first row −q₁ … −qₙ, ones on the subdiagonal

@@ -92,9 +92,17 @@ function bulkArrays(res: DiscretizeResponse): number[][] {
 }
 
 function finiteArray(v: readonly number[]): boolean {
-  let acc = 0;
-  for (let i = 0; i < v.length; i++) acc += v[i] - v[i]; // stays 0 unless some v[i] is NaN or ±∞
-  return acc === 0;
+  // each sum stays 0 unless some v[i] is NaN or ±∞ (two sums: independent additions pipeline)
+  let even = 0;
+  let odd = 0;
+  const n = v.length;
+  let i = 0;
+  for (; i + 1 < n; i += 2) {
+    even += v[i] - v[i];
+    odd += v[i + 1] - v[i + 1];
+  }
+  if (i < n) even += v[i] - v[i];
+  return even === 0 && odd === 0;
 }
 
 /** Fast scan (no paths built): true when a NaN or ±∞ sits anywhere in v outside the arrays in `skip`. */

@@ -15,6 +15,8 @@ import type { Complex, Zpk } from './types';
 // binding is read through the module's export object on every call)
 const hypot = complexHypot;
 const DEG = 180 / Math.PI;
+/** dB of a power ratio per unit of its natural logarithm, 10/ln 10. */
+const DB_PER_LN_POWER = 10 / Math.LN10;
 /** |z| within this of 1 counts as on the unit circle (roots mapped from s = jω land there up to rounding). */
 export const UNIT_CIRCLE_TOL = 1e-12;
 /** Magnitudes are floored here so −∞ dB (a zero on the axis or circle) stays a number. */
@@ -254,7 +256,9 @@ function gridResponse(e: Evaluator, xr: ArrayLike<number> | null, xi: ArrayLike<
   const magnitudeDb = new Array<number>(n);
   const phaseDeg = new Array<number>(n);
   for (let i = 0; i < n; i++) {
-    magnitudeDb[i] = dbOf(e, mag2[i], xr ? xr[i] : 0, xi[i]);
+    // dbOf, with its common case (finite and not below MIN_DB) in line
+    const db = DB_PER_LN_POWER * Math.log(mag2[i]);
+    magnitudeDb[i] = db > MIN_DB && db < Infinity ? db : dbOf(e, mag2[i], xr ? xr[i] : 0, xi[i]);
     phaseDeg[i] = ph[i] * DEG;
   }
   return { magnitudeDb, phaseDeg };
@@ -262,7 +266,7 @@ function gridResponse(e: Evaluator, xr: ArrayLike<number> | null, xi: ArrayLike<
 
 /** The dB value of evalInto from |H|² at x (the log-sum form where |H|² under- or overflows), floored at MIN_DB. */
 function dbOf(e: Evaluator, mag2: number, xr: number, xi: number): number {
-  let db = (10 / Math.LN10) * Math.log(mag2);
+  let db = DB_PER_LN_POWER * Math.log(mag2);
   if (!Number.isFinite(db) || mag2 === 0) db = logSumDb(e, { re: xr, im: xi });
   return Number.isFinite(db) ? Math.max(MIN_DB, db) : db > 0 ? -MIN_DB : MIN_DB;
 }

@@ -35,33 +35,44 @@ function sections(zpk: Zpk): Section[] {
   const P = splitRoots(zpk.poles);
   const Z = splitRoots(zpk.zeros);
   if (P.unpaired.length || Z.unpaired.length) throw new Error('complex roots must come in conjugate pairs');
-  const realPoles = [...P.real];
-  const secs: Section[] = P.pairs.map((r) => ({ kind: 'pair' as const, p: [r.re, Math.abs(r.im)], num: [] as number[] }));
+  const secs: Section[] = [];
+  for (const r of P.pairs) secs.push({ kind: 'pair', p: [r.re, Math.abs(r.im)], num: [] });
   // Complex zero pairs need a second-order section; merge two real poles when short of pairs.
+  let nextReal = 0;
   let pairSlots = secs.length;
-  while (pairSlots < Z.pairs.length && realPoles.length >= 2) {
-    secs.push({ kind: 'real2', p: [realPoles.shift()!, realPoles.shift()!], num: [] });
+  while (pairSlots < Z.pairs.length && P.real.length - nextReal >= 2) {
+    secs.push({ kind: 'real2', p: [P.real[nextReal], P.real[nextReal + 1]], num: [] });
+    nextReal += 2;
     pairSlots++;
   }
-  for (const p of realPoles) secs.push({ kind: 'real1', p: [p], num: [] });
-  // Numerators as factor lists, then expanded per section (degree ≤ 2).
-  const factors: number[][][] = secs.map(() => []);
-  const capacity: number[] = secs.map((s) => (s.kind === 'real1' ? 1 : 2));
+  for (; nextReal < P.real.length; nextReal++) secs.push({ kind: 'real1', p: [P.real[nextReal]], num: [] });
+  // Numerators as factor lists, then expanded per section (degree ≤ 2): each zero pair to
+  // the first second-order section with room, each real zero to the first section with room.
+  const factors: number[][][] = [];
+  const capacity: number[] = [];
+  for (const s of secs) {
+    factors.push([]);
+    capacity.push(s.kind === 'real1' ? 1 : 2);
+  }
   for (const zp of Z.pairs) {
-    const k = secs.findIndex((s, i) => s.kind !== 'real1' && capacity[i] === 2);
+    let k = 0;
+    while (k < secs.length && !(secs[k].kind !== 'real1' && capacity[k] === 2)) k++;
+    if (k === secs.length) k = -1;
     factors[k].push([1, -2 * zp.re, zp.re * zp.re + zp.im * zp.im]);
     capacity[k] = 0;
   }
   for (const z of Z.real) {
-    const k = capacity.findIndex((c) => c > 0);
+    let k = 0;
+    while (k < capacity.length && !(capacity[k] > 0)) k++;
+    if (k === capacity.length) k = -1;
     factors[k].push([1, -z]);
     capacity[k] -= 1;
   }
-  secs.forEach((s, i) => {
+  for (let i = 0; i < secs.length; i++) {
     let num = [1];
     for (const f of factors[i]) num = mulPoly(num, f);
-    s.num = num;
-  });
+    secs[i].num = num;
+  }
   return secs;
 }
 

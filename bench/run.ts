@@ -8,6 +8,9 @@
  *    trip, median and p95;
  *  - requests per second of each under a loopback load (autocannon, 8 connections);
  *  - bundle generation time (median, p95), when the code generator is present.
+ * Knobs: BENCH_FORMATS=packed (one format only), BENCH_REQUESTS=5000 (measured requests per
+ * format, after 100 to warm up), BENCH_LOAD=0 (no load run), BENCH_PROFILE=1 (the server
+ * writes a CPU profile to /tmp/srvprof).
  */
 import fs from 'node:fs';
 import os from 'node:os';
@@ -23,6 +26,12 @@ import { summary } from './stats';
 import { freePort } from '../server/http/ports';
 
 const ROOT = path.resolve(__dirname, '..');
+
+// knobs for profiling runs (defaults: what the table in DEVELOPERS.md reports)
+const FORMATS = (process.env.BENCH_FORMATS ?? 'packed,numbers').split(',').filter((f): f is 'packed' | 'numbers' => f === 'packed' || f === 'numbers');
+const REQUESTS = Number(process.env.BENCH_REQUESTS ?? 1000);
+const WARM_UP = 100;
+const LOAD = process.env.BENCH_LOAD !== '0';
 
 const REQUEST = {
   compensator: { form: 'zpk', zeros: [-0.6, -5], poles: [-0.15, -40], gain: 22 },
@@ -73,20 +82,20 @@ async function main() {
       'Content-Type': 'application/json', cookie: login.headers.get('set-cookie')!.split(';')[0]!, 'X-CSRF-Token': csrfToken,
     };
     // the same request twice: series packed, as the web editor asks for them, and as plain JSON numbers
-    for (const format of ['packed', 'numbers'] as const) {
+    for (const format of FORMATS) {
       const body = JSON.stringify({ ...REQUEST, seriesFormat: format });
       const label = format === 'packed' ? 'series packed (the editor\'s request)' : 'series as JSON numbers';
       const compute: number[] = [];
       const roundTrip: number[] = [];
       const whole: number[] = [];
       let bytes = 0;
-      for (let i = 0; i < 1100; i++) {
+      for (let i = 0; i < WARM_UP + REQUESTS; i++) {
         const t0 = performance.now();
         const res = await fetch(`${base}/api/v1/discretize`, { method: 'POST', headers, body });
         const buf = await res.arrayBuffer();
         const t1 = performance.now();
         if (res.status !== 200) throw new Error(`discretize answered ${res.status}`);
-        if (i < 100) continue; // warm-up
+        if (i < WARM_UP) continue;
         bytes = buf.byteLength;
         roundTrip.push(t1 - t0);
         const timing = res.headers.get('server-timing') ?? '';
@@ -101,6 +110,7 @@ async function main() {
       rows.push([`discretize, ${label}: server time per request (arrival to headers)`, w.median.toFixed(3), w.p95.toFixed(3), `ms, n=${w.n}, target median ≤ 2`]);
       rows.push(['  of which computation', c.median.toFixed(3), c.p95.toFixed(3), `ms, n=${c.n}`]);
       rows.push(['  loopback round trip, one client', rt.median.toFixed(3), rt.p95.toFixed(3), `ms, answer ${(bytes / 1024).toFixed(0)} KiB`]);
+      if (!LOAD) continue;
       const load = await autocannon({
         url: `${base}/api/v1/discretize`, method: 'POST', headers, body, connections: 8, duration: 8,
       });

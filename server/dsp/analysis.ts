@@ -213,10 +213,27 @@ let accMag2 = new Float64Array(512);
 let accPh = new Float64Array(512);
 
 /**
+ * How far (deg) a phase of gridResponse may lie from the root-by-root sum of responseAt:
+ * a bound with a wide margin on the rounding of either form (some 1e-13 deg).
+ */
+export const PHASE_SLACK_DEG = 1e-9;
+/** |x − r|² of a zero or pole taken in a pair must lie within these bounds (no under- or overflow in the pair's product). */
+const PAIR_SQ_LO = 1e-140;
+const PAIR_SQ_HI = 1e140;
+
+/**
  * Magnitude (dB) and phase (deg) of a zpk at the points x = xr[i] + j·xi[i] (xr null: 0),
- * every point exactly as responseAt evaluates it (the same products, sums and fallbacks,
- * per point in the same order), but computed one root at a time over all the points:
- * the tight per-root loops of atan2 are what a response costs.
+ * computed one root at a time over all the points (tight loops; atan2 is what a response
+ * costs).
+ * - Magnitudes: exactly as responseAt (the same products and quotients in the same order).
+ * - Phases: responseAt sums the root angles, ∠(x − zᵢ) − ∠(x − pᵢ), one atan2 per root.
+ *   Here zero k is taken with pole k: where both x − z and x − p lie above the real axis
+ *   (always for real roots and the lower member of a pair, on both response grids, whose
+ *   points have Im x > 0) both angles lie in (0, π), so their difference is the angle of
+ *   (x − z)·conj(x − p), with no multiple of 2π to add: one atan2 for the two. Elsewhere,
+ *   and for the roots left over, one atan2 each. The result is the same sum up to
+ *   rounding, within PHASE_SLACK_DEG; point 0, which fixes the 360° shift of a discrete
+ *   phase against the continuous one, takes the root-by-root sum itself.
  */
 function gridResponse(e: Evaluator, xr: ArrayLike<number> | null, xi: ArrayLike<number>): Response {
   const n = xi.length;
@@ -233,6 +250,7 @@ function gridResponse(e: Evaluator, xr: ArrayLike<number> | null, xi: ArrayLike<
     ph[i] = ph0;
   }
   const { zr, zi, pr, pi } = e;
+  // |H|²: zeros, then poles, as evalInto
   for (let r = 0; r < zr.length; r++) {
     const ar = zr[r];
     const ai = zi[r];
@@ -240,7 +258,6 @@ function gridResponse(e: Evaluator, xr: ArrayLike<number> | null, xi: ArrayLike<
       const dr = (xr ? xr[i] : 0) - ar;
       const di = xi[i] - ai;
       mag2[i] *= dr * dr + di * di;
-      ph[i] += Math.atan2(di, dr);
     }
   }
   for (let r = 0; r < pr.length; r++) {
@@ -250,9 +267,43 @@ function gridResponse(e: Evaluator, xr: ArrayLike<number> | null, xi: ArrayLike<
       const dr = (xr ? xr[i] : 0) - ar;
       const di = xi[i] - ai;
       mag2[i] /= dr * dr + di * di;
-      ph[i] -= Math.atan2(di, dr);
     }
   }
+  // ∠H: zero k taken with pole k, then the roots left over one by one
+  const pairs = Math.min(zr.length, pr.length);
+  for (let r = 0; r < pairs; r++) {
+    const zRe = zr[r];
+    const zIm = zi[r];
+    const pRe = pr[r];
+    const pIm = pi[r];
+    for (let i = 0; i < n; i++) {
+      const x = xr ? xr[i] : 0;
+      const a = x - zRe;
+      const b = xi[i] - zIm;
+      const c = x - pRe;
+      const d = xi[i] - pIm;
+      const az = a * a + b * b;
+      const ap = c * c + d * d;
+      if (b > 0 && d > 0 && az > PAIR_SQ_LO && az < PAIR_SQ_HI && ap > PAIR_SQ_LO && ap < PAIR_SQ_HI) {
+        // both factors above the real axis: ∠(x − z) − ∠(x − p) = ∠((a + jb)(c − jd))
+        ph[i] += Math.atan2(b * c - a * d, a * c + b * d);
+      } else {
+        ph[i] += Math.atan2(b, a);
+        ph[i] -= Math.atan2(d, c);
+      }
+    }
+  }
+  for (let r = pairs; r < zr.length; r++) {
+    const ar = zr[r];
+    const ai = zi[r];
+    for (let i = 0; i < n; i++) ph[i] += Math.atan2(xi[i] - ai, (xr ? xr[i] : 0) - ar);
+  }
+  for (let r = pairs; r < pr.length; r++) {
+    const ar = pr[r];
+    const ai = pi[r];
+    for (let i = 0; i < n; i++) ph[i] -= Math.atan2(xi[i] - ai, (xr ? xr[i] : 0) - ar);
+  }
+  if (n > 0) ph[0] = phaseSum(e, xr ? xr[0] : 0, xi[0]);
   const magnitudeDb = new Array<number>(n);
   const phaseDeg = new Array<number>(n);
   for (let i = 0; i < n; i++) {
@@ -262,6 +313,19 @@ function gridResponse(e: Evaluator, xr: ArrayLike<number> | null, xi: ArrayLike<
     phaseDeg[i] = ph[i] * DEG;
   }
   return { magnitudeDb, phaseDeg };
+}
+
+/** ∠H(x) (rad) as the sum of the root angles, as evalInto forms it. */
+function phaseSum(e: Evaluator, xr: number, xi: number): number {
+  let ph = e.k < 0 ? Math.PI : 0;
+  for (let i = 0; i < e.zr.length; i++) ph += Math.atan2(xi - e.zi[i], xr - e.zr[i]);
+  for (let i = 0; i < e.pr.length; i++) ph -= Math.atan2(xi - e.pi[i], xr - e.pr[i]);
+  return ph;
+}
+
+/** The phase (deg) responseAt gives at x = xr + j·xi: the sum of the root angles. */
+export function phaseDegAt(e: Evaluator, xr: number, xi: number): number {
+  return phaseSum(e, xr, xi) * DEG;
 }
 
 /** The dB value of evalInto from |H|² at x (the log-sum form where |H|² under- or overflows), floored at MIN_DB. */

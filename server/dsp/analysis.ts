@@ -720,6 +720,24 @@ export function closedLoopBelow(e: Evaluator, w: number, limit: number): boolean
   return closedLoopMagnitudeAt(e, w) < limit;
 }
 
+/**
+ * −3 dB bandwidth of the continuous closed loop L/(1 + L), rad/s (`loop`: L's evaluator);
+ * null when none is found. Scans the 200-point log grid of logGrid(lo, hi, 200) upwards,
+ * each point computed only when reached.
+ */
+export function closedLoopBandwidthRad(loop: Evaluator, lo: number, hi: number): number | null {
+  const n = 200;
+  const a = Math.log(lo);
+  const step = (Math.log(hi) - a) / (n - 1);
+  const t0 = closedLoopMagnitudeAt(loop, lo);
+  if (!(t0 > 0) || !Number.isFinite(t0)) return null;
+  for (let i = 0; i < n; i++) {
+    const w = i === 0 ? lo : i === n - 1 ? hi : Math.exp(a + step * i);
+    if (closedLoopBelow(loop, w, t0 / Math.SQRT2)) return w;
+  }
+  return null;
+}
+
 // ------------------------------------------------------------------ loops and steps
 
 /** Closed-loop characteristic polynomial den·z^d + num (descending), and its roots. */

@@ -23,8 +23,7 @@ import {
   discreteStep,
   evaluator,
   findCrossings,
-  closedLoopBelow,
-  closedLoopMagnitudeAt,
+  closedLoopBandwidthRad,
   logGrid,
   pairRoots,
   phaseDegAt,
@@ -457,24 +456,6 @@ const MAX_STEP_POINTS = 400;
 /** Metrics on the full simulation; the arrays sent are thinned to ≤ MAX_STEP_POINTS (last point kept). */
 function stepOut(y: number[], h: number, finalValue: number | null): StepResponse {
   return uniformStep(y, y.length, h, finalValue, y.length, MAX_STEP_POINTS);
-}
-
-/**
- * −3 dB bandwidth of the continuous closed loop L/(1 + L), rad/s (`loop`: L's evaluator);
- * null when none is found. Scans the 200-point log grid of logGrid(lo, hi, 200) upwards,
- * each point computed only when reached.
- */
-function closedLoopBandwidthRad(loop: Evaluator, lo: number, hi: number): number | null {
-  const n = 200;
-  const a = Math.log(lo);
-  const step = (Math.log(hi) - a) / (n - 1);
-  const t0 = closedLoopMagnitudeAt(loop, lo);
-  if (!(t0 > 0) || !Number.isFinite(t0)) return null;
-  for (let i = 0; i < n; i++) {
-    const w = i === 0 ? lo : i === n - 1 ? hi : Math.exp(a + step * i);
-    if (closedLoopBelow(loop, w, t0 / Math.SQRT2)) return w;
-  }
-  return null;
 }
 
 /** The sampled loop: compensator by `method`, plant by ZOH, optional one-sample delay. */

@@ -499,8 +499,7 @@ const SQ_MARGIN = 1e-12;
  * refine). ln|L| and the phase (radians, any branch) are those of lnMagPhaseInto; the
  * grid phase is unwrapped. On the grid ln|L| is needed only for its sign, that of
  * |v|² − |q|² where these are clearly apart (else of |v|/|q| − 1 as computed), so the
- * magnitudes and the logarithm are taken only at the points where they are used. The
- * products are formed one root at a time over all points (the same products per point).
+ * magnitudes and the logarithm are taken only at the points where they are used.
  */
 export function findCrossings(e: Evaluator, grid: CrossingGrid): Crossings {
   const { ws, xr, xi, periodSec: T } = grid;
@@ -522,58 +521,56 @@ export function findCrossings(e: Evaluator, grid: CrossingGrid): Crossings {
   const sign = gSign;
   const lns = gLn;
   const phs = gPh;
+  const { zr, zi, pr, pi } = e;
   for (let i = 0; i < n; i++) {
-    vr[i] = e.k;
-    vi[i] = 0;
-    qr[i] = 1;
-    qi[i] = 0;
-  }
-  for (let r = 0; r < e.zr.length; r++) {
-    const ar = e.zr[r];
-    const ai = e.zi[r];
-    for (let i = 0; i < n; i++) {
-      const dr = xr[i] - ar;
-      const di = xi[i] - ai;
-      const t = vr[i] * dr - vi[i] * di;
-      vi[i] = vr[i] * di + vi[i] * dr;
-      vr[i] = t;
+    // v = K·Π(x − zᵢ), q = Π(x − pᵢ) as lnMagPhaseInto forms them
+    const x = xr[i];
+    const y = xi[i];
+    let ar = e.k;
+    let ai = 0;
+    for (let r = 0; r < zr.length; r++) {
+      const dr = x - zr[r];
+      const di = y - zi[r];
+      const t = ar * dr - ai * di;
+      ai = ar * di + ai * dr;
+      ar = t;
     }
-  }
-  for (let r = 0; r < e.pr.length; r++) {
-    const ar = e.pr[r];
-    const ai = e.pi[r];
-    for (let i = 0; i < n; i++) {
-      const dr = xr[i] - ar;
-      const di = xi[i] - ai;
-      const t = qr[i] * dr - qi[i] * di;
-      qi[i] = qr[i] * di + qi[i] * dr;
-      qr[i] = t;
+    let br = 1;
+    let bi = 0;
+    for (let r = 0; r < pr.length; r++) {
+      const dr = x - pr[r];
+      const di = y - pi[r];
+      const t = br * dr - bi * di;
+      bi = br * di + bi * dr;
+      br = t;
     }
-  }
-  for (let i = 0; i < n; i++) {
-    const sv = vr[i] * vr[i] + vi[i] * vi[i];
-    const sq = qr[i] * qr[i] + qi[i] * qi[i];
+    vr[i] = ar;
+    vi[i] = ai;
+    qr[i] = br;
+    qi[i] = bi;
+    const sv = ar * ar + ai * ai;
+    const sq = br * br + bi * bi;
     let ph: number;
     lns[i] = NaN;
     if (sv > SQ_LO && sv < SQ_HI && sq > SQ_LO && sq < SQ_HI) {
       if (sv > sq * (1 + SQ_MARGIN)) sign[i] = 1;
       else if (sv < sq * (1 - SQ_MARGIN)) sign[i] = -1;
       else {
-        const m = hypot(vr[i], vi[i]) / hypot(qr[i], qi[i]);
+        const m = hypot(ar, ai) / hypot(br, bi);
         sign[i] = m > 1 ? 1 : m < 1 ? -1 : 0;
       }
-      ph = Math.atan2(vi[i], vr[i]) - Math.atan2(qi[i], qr[i]);
+      ph = Math.atan2(ai, ar) - Math.atan2(bi, br);
     } else {
       // as lnMagPhaseInto, including its fallback to the log-sum form
-      const m = hypot(vr[i], vi[i]) / hypot(qr[i], qi[i]);
+      const m = hypot(ar, ai) / hypot(br, bi);
       if (!(m > 0) || !Number.isFinite(m)) {
-        evalInto(e, xr[i], xi[i]);
+        evalInto(e, x, y);
         lns[i] = (outDb * Math.LN10) / 20;
         sign[i] = Math.sign(lns[i]);
         ph = outDeg / DEG;
       } else {
         sign[i] = m > 1 ? 1 : m < 1 ? -1 : 0;
-        ph = Math.atan2(vi[i], vr[i]) - Math.atan2(qi[i], qr[i]);
+        ph = Math.atan2(ai, ar) - Math.atan2(bi, br);
       }
     }
     const prev = i > 0 ? phs[i - 1] : ph;

@@ -218,9 +218,13 @@ let accPh = new Float64Array(512);
  * random points of random designs, roots on the grid and the unit circle included).
  */
 export const PHASE_SLACK_DEG = 1e-9;
-/** |x − r|² of a zero or pole taken in a pair must lie within these bounds (no under- or overflow in the pair's product). */
+/**
+ * |x − r|² of a zero or pole taken in a pair must lie within these bounds: the products of
+ * two factors, and of two pairs, then stay far from under- and overflow.
+ */
 const PAIR_SQ_LO = 1e-140;
 const PAIR_SQ_HI = 1e140;
+const pairInRange = (sq: number): boolean => sq > PAIR_SQ_LO && sq < PAIR_SQ_HI;
 
 /**
  * Magnitude (dB) and phase (deg) of a zpk at the points x = xr[i] + j·xi[i] (xr null: 0),
@@ -230,8 +234,10 @@ const PAIR_SQ_HI = 1e140;
  * - Phases: responseAt sums the root angles, ∠(x − zᵢ) − ∠(x − pᵢ), one atan2 per root.
  *   Here zero k is taken with pole k: where both x − z and x − p lie above the real axis
  *   (Im r < Im x: always for real roots and the lower member of a pair, on both response
- *   grids, whose points have Im x > 0) both angles lie in (0, π), so their difference is the angle of
- *   (x − z)·conj(x − p), with no multiple of 2π to add: one atan2 for the two. Elsewhere,
+ *   grids, whose points have Im x > 0) both angles lie in (0, π), so their difference is
+ *   the angle of u = (x − z)·conj(x − p), with no multiple of 2π to add. Two such pairs
+ *   whose u and v both lie in the right half-plane (each angle within ±π/2) are taken
+ *   together again: ∠u + ∠v = ∠(u·v). So one atan2 serves up to four roots. Elsewhere,
  *   and for the roots left over, one atan2 each. The result is the same sum up to
  *   rounding, within PHASE_SLACK_DEG; point 0, which fixes the 360° shift of a discrete
  *   phase against the continuous one, takes the root-by-root sum itself.
@@ -270,27 +276,47 @@ function gridResponse(e: Evaluator, xr: ArrayLike<number> | null, xi: ArrayLike<
       mag2[i] /= dr * dr + di * di;
     }
   }
-  // ∠H: zero k taken with pole k, then the roots left over one by one
+  // ∠H: zero k taken with pole k, two such pairs at a time, then the roots left over one by one
   const pairs = Math.min(zr.length, pr.length);
-  for (let r = 0; r < pairs; r++) {
-    const zRe = zr[r];
-    const zIm = zi[r];
-    const pRe = pr[r];
-    const pIm = pi[r];
+  for (let r = 0; r < pairs; r += 2) {
+    const two = r + 1 < pairs;
+    const z0r = zr[r];
+    const z0i = zi[r];
+    const p0r = pr[r];
+    const p0i = pi[r];
+    const z1r = two ? zr[r + 1] : 0;
+    const z1i = two ? zi[r + 1] : 0;
+    const p1r = two ? pr[r + 1] : 0;
+    const p1i = two ? pi[r + 1] : 0;
     for (let i = 0; i < n; i++) {
       const x = xr ? xr[i] : 0;
-      const a = x - zRe;
-      const b = xi[i] - zIm;
-      const c = x - pRe;
-      const d = xi[i] - pIm;
-      const az = a * a + b * b;
-      const ap = c * c + d * d;
-      if (b > 0 && d > 0 && az > PAIR_SQ_LO && az < PAIR_SQ_HI && ap > PAIR_SQ_LO && ap < PAIR_SQ_HI) {
-        // both factors above the real axis: ∠(x − z) − ∠(x − p) = ∠((a + jb)(c − jd))
-        ph[i] += Math.atan2(b * c - a * d, a * c + b * d);
+      const y = xi[i];
+      // pair r: u = (x − z)·conj(x − p) = (a + jb)(c − jd)
+      const a = x - z0r;
+      const b = y - z0i;
+      const c = x - p0r;
+      const d = y - p0i;
+      const ok0 = b > 0 && d > 0 && pairInRange(a * a + b * b) && pairInRange(c * c + d * d);
+      const ur = a * c + b * d;
+      const ui = b * c - a * d;
+      if (!two) {
+        ph[i] += ok0 ? Math.atan2(ui, ur) : Math.atan2(b, a) - Math.atan2(d, c);
+        continue;
+      }
+      // pair r + 1: v = (e + jf)(g − jh)
+      const e1 = x - z1r;
+      const f1 = y - z1i;
+      const g1 = x - p1r;
+      const h1 = y - p1i;
+      const ok1 = f1 > 0 && h1 > 0 && pairInRange(e1 * e1 + f1 * f1) && pairInRange(g1 * g1 + h1 * h1);
+      const vr = e1 * g1 + f1 * h1;
+      const vi = f1 * g1 - e1 * h1;
+      if (ok0 && ok1 && ur > 0 && vr > 0) {
+        // both in the right half-plane: |∠u + ∠v| < π, so ∠u + ∠v = ∠(u·v)
+        ph[i] += Math.atan2(ur * vi + ui * vr, ur * vr - ui * vi);
       } else {
-        ph[i] += Math.atan2(b, a);
-        ph[i] -= Math.atan2(d, c);
+        ph[i] += ok0 ? Math.atan2(ui, ur) : Math.atan2(b, a) - Math.atan2(d, c);
+        ph[i] += ok1 ? Math.atan2(vi, vr) : Math.atan2(f1, e1) - Math.atan2(h1, g1);
       }
     }
   }

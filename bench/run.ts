@@ -8,8 +8,11 @@
  *    trip, median and p95;
  *  - requests per second of each under a loopback load (autocannon, 8 connections);
  *  - bundle generation time (median, p95), when the code generator is present.
+ * Each format is measured in steady state: 1000 requests first let V8 optimise the hot code
+ * (a function called once per request is optimised only after hundreds of requests), then
+ * 2000 are measured.
  * Knobs: BENCH_FORMATS=packed (one format only), BENCH_REQUESTS=5000 (measured requests per
- * format, after 100 to warm up), BENCH_LOAD=0 (no load run), BENCH_PROFILE=1 (the server
+ * format), BENCH_WARMUP=100 (requests before measuring), BENCH_LOAD=0 (no load run), BENCH_PROFILE=1 (the server
  * writes a CPU profile to /tmp/srvprof).
  */
 import fs from 'node:fs';
@@ -29,8 +32,8 @@ const ROOT = path.resolve(__dirname, '..');
 
 // knobs for profiling runs (defaults: what the table in DEVELOPERS.md reports)
 const FORMATS = (process.env.BENCH_FORMATS ?? 'packed,numbers').split(',').filter((f): f is 'packed' | 'numbers' => f === 'packed' || f === 'numbers');
-const REQUESTS = Number(process.env.BENCH_REQUESTS ?? 1000);
-const WARM_UP = 100;
+const REQUESTS = Number(process.env.BENCH_REQUESTS ?? 2000);
+const WARM_UP = Number(process.env.BENCH_WARMUP ?? 1000);
 const LOAD = process.env.BENCH_LOAD !== '0';
 
 const REQUEST = {

@@ -24,14 +24,31 @@ export const MIN_DB = -400;
 
 const r = (c: Complex): Complex => ({ re: c.re, im: c.im });
 
-/** s = ln(z)/T, via log1p(z − 1) so roots near z = 1 keep their digits. Null for z = 0. */
+/**
+ * |z − 1| below this uses ln z = log1p(z − 1) (zToS); elsewhere the plain ln|z| + j·arg z.
+ * In the log1p form |z|² − 1 = 2·Re w + |w|² (w = z − 1) is formed without cancellation,
+ * so roots near z = 1 (slow roots at high rates) keep their digits; away from z = 1 it
+ * has nothing to gain, and as |z| → 0 it rounds |z|² − 1 to −1 (ln|z| = −∞ below
+ * |z| ≈ 1e-8, digits lost well before), or overflows |w|² for |z| above ~1e154.
+ */
+const LOG1P_RADIUS = 0.5;
+
+/**
+ * s = ln(z)/T (principal logarithm, Im s·T in (−π, π]); null for z = 0. Near z = 1
+ * ln z = log1p(z − 1) (see LOG1P_RADIUS), elsewhere ln|z| + j·atan2(Im z, Re z): every
+ * z ≠ 0 gives a finite s, |Re s| ≤ 745/T (ln of the smallest double).
+ */
 export function zToS(z: Complex, periodSec: number): Complex | null {
   if (z.re === 0 && z.im === 0) return null;
-  // log1p(w) with w = z − 1: ½·log1p(2 Re w + |w|²) + j·atan2(Im w, 1 + Re w) (complex.ts log1p)
   const wr = z.re - 1;
   const wi = z.im - 0;
-  const t = 2 * wr + wr * wr + wi * wi;
-  return { re: (0.5 * Math.log1p(t)) / periodSec, im: Math.atan2(wi, 1 + wr) / periodSec };
+  if (wr * wr + wi * wi < LOG1P_RADIUS * LOG1P_RADIUS) {
+    // log1p(w): ½·log1p(2 Re w + |w|²) + j·atan2(Im w, 1 + Re w) (complex.ts log1p);
+    // Re z in (0.5, 1.5) here, so w and 1 + Re w = Re z are exact
+    const t = 2 * wr + wr * wr + wi * wi;
+    return { re: (0.5 * Math.log1p(t)) / periodSec, im: Math.atan2(wi, 1 + wr) / periodSec };
+  }
+  return { re: Math.log(hypot(z.re, z.im)) / periodSec, im: Math.atan2(z.im, z.re) / periodSec };
 }
 
 /** RootInfo of a continuous root s (z = null) or of a discrete root z with its origin. */

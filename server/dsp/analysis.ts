@@ -1,7 +1,7 @@
 import type { Margins, RootInfo, StepResponse } from '../../schemas/discretize';
 import { cx, hypot as complexHypot } from './complex';
 import { evalZpk } from './lti';
-import { polyAdd, polyRoots, trimLeading } from './poly';
+import { polyAdd, polyRoots } from './poly';
 import { zohSs, zpkToSs } from './realization';
 import type { Complex, Zpk } from './types';
 
@@ -780,10 +780,15 @@ export function closedLoopBandwidthRad(loop: Evaluator, lo: number, hi: number):
 
 // ------------------------------------------------------------------ loops and steps
 
-/** Closed-loop characteristic polynomial den·z^d + num (descending), and its roots. */
+/**
+ * Closed-loop characteristic polynomial den·z^d + num (descending), and its roots.
+ * `lead` is its coefficient of the degree of den·z^d, 1 + L(∞) times den's leading
+ * coefficient: 0 when the loop is ill-posed (the caller refuses it; the roots are then
+ * those of the polynomial without its vanished leading term).
+ */
 export function closedLoopPoles(numDesc: number[], denDesc: number[], delay = 0): { poles: Complex[]; lead: number } {
   const den = delay > 0 ? [...denDesc, ...new Array<number>(delay).fill(0)] : denDesc;
-  const ch = trimLeading(polyAdd(den, numDesc));
+  const ch = polyAdd(den, numDesc);
   return { poles: polyRoots(ch), lead: ch[0] };
 }
 

@@ -176,8 +176,9 @@ export function evaluator(h: Zpk): Evaluator {
 
 /**
  * Magnitude (dB) and phase (deg) of a zpk at x = xr + j·xi (x = jω continuous,
- * x = e^{jωT} discrete). The phase is the sum of the root angles, so it is unwrapped by
- * construction (it jumps only where a root sits on the axis or circle).
+ * x = e^{jωT} discrete). The phase is the sum of the principal root angles (each
+ * atan2(x − r) in (−π, π]); along a response contour it is made continuous by whole turns
+ * (branchTurns, phaseDegAt).
  */
 export function responseAt(h: Zpk | Evaluator, x: Complex): { db: number; deg: number } {
   evalInto('k' in h ? h : evaluator(h), x.re, x.im);
@@ -221,16 +222,105 @@ export interface Response {
   phaseDeg: number[];
 }
 
-export function continuousResponse(hIn: Zpk, omegas: number[]): Response {
-  return gridResponse(evaluator(hIn), null, omegas);
+/**
+ * Response of a continuous zpk at x = jω for ω in `omegas` (rad/s). `periodSec`, when
+ * given, sets the scale below which a root counts as on the jω axis (ON_CONTOUR·max(|r|, 1/T),
+ * the rounding scale of the discrete models' roots at that rate; see branchRule).
+ */
+export function continuousResponse(hIn: Zpk, omegas: number[], periodSec?: number): Response {
+  return gridResponse(evaluator(hIn), null, omegas, periodSec ? 1 / periodSec : 0);
 }
 
 // Per-point accumulators of gridResponse (module scratch, grown as needed).
 let accMag2 = new Float64Array(512);
 let accPh = new Float64Array(512);
+let accTurns = new Float64Array(512);
+
+/*
+ * Continuous phase along a response contour. The principal angle atan2(x − r) of a root
+ * r jumps by 2π wherever x − r crosses the negative real axis, which happens on the
+ * contour itself, not only where x passes r: for x = e^{jωT} and a root with
+ * 0 < Im r < 1 where the circle passes left of r at the height of r (every complex root
+ * inside the circle, e.g. −10 ± 20j at 200 Hz at ~98 Hz), for x = jω and a complex root
+ * in the right half-plane at ω = Im r. The sum of root angles then jumps by 360°.
+ * The angle of x − r has a branch that is continuous along the whole contour as long as r
+ * is not on it, and it lies in a fixed interval shorter than 2π (or of width 2π, open):
+ *   x = jω:      Re r < 0: (−π/2, π/2), the principal value itself;
+ *                Re r > 0: π + ∠(r − x) ∈ (π/2, 3π/2)            (Re(r − x) > 0).
+ *   x = e^{jθ}:  |r| < 1: θ + ∠(1 − r·x̄) ∈ (−π/2, 3π/2)          (θ ∈ [0, π], |r·x̄| < 1);
+ *                |r| > 1: ∠(−r) + ∠(1 − x/r) ∈ ∠(−r) ± π/2        (|x/r| < 1).
+ * So the principal value p differs from that branch by a whole turn exactly where p falls
+ * outside the interval, which the signs of x − r = dr + j·di decide without any further
+ * arithmetic (rule 1: +1 turn in the open third quadrant dr < 0, di < 0, for the
+ * interval (−π/2, 3π/2), which holds the continuous ones for Re r > 0 and the discrete ones
+ * for |r| ≤ 1 (or on the circle within ON_CONTOUR) and for |r| > 1 with Re r > 0 ≥ Im r
+ * (∠(−r) ∈ [π/2, π]); rule 2: −1 turn for
+ * dr < 0, di ≥ 0, for |r| > 1 with Re r > 0 and Im r > 0 (∠(−r) ∈ (−π, −π/2)); no turn
+ * for |r| > 1 with Re r ≤ 0, whose interval lies within [−π, π]). These are the
+ * comparisons atan2 itself branches on (x.re < Re r ⇔ dr < 0, x.im < Im r ⇔ di < 0, exactly),
+ * so a whole turn is added exactly where atan2 left the continuous branch. Whole turns are
+ * chosen per point, not by comparing neighbours, so the phase at a point does not depend
+ * on the grid: a root close to the contour, whose angle swings by nearly 180° between two
+ * grid points, or a coarse grid cannot make it pick the wrong turn, and one point can be
+ * evaluated alone (band errors) exactly as on the grid. A root on the contour itself keeps
+ * its genuine ±180° step (there x − r passes through 0), and so does a root within rounding
+ * of it (ON_CONTOUR), so that the continuous and the discrete phases of a root on the
+ * contour step the same way whichever side rounding put it on. Every phase is then taken
+ * relative to its first grid point (turns there subtracted), so point 0 keeps its
+ * principal root sum and with it the rule that shifts a discrete phase by a multiple of
+ * 360° to start beside the continuous one.
+ */
 
 /**
- * How far (deg) a phase of gridResponse may lie from the root-by-root sum of responseAt:
+ * A root this close to a response contour is taken as on it: |Re s| ≤ ON_CONTOUR·max(|s|, 1/T)
+ * for x = jω, ln|z| ≤ ON_CONTOUR (|z|² ≤ 1 + 2·ON_CONTOUR) for x = e^{jωT} (the same bound:
+ * ln|z| = Re s·T for z = e^{sT}), far above the rounding of the discrete roots (a few
+ * 1e-16 in ln|z|) and far below any grid spacing (the step at such a root is narrower
+ * than ON_CONTOUR·max(|s|, 1/T) rad/s). On the contour, a root keeps the step its principal
+ * angle makes where x passes it: +180° (x − r turns from pointing down to pointing up
+ * through the right), but −180° for a root at z = −1 when rounding put the Nyquist grid
+ * point a hair beyond θ = π (below the real axis; then x − r points straight down).
+ */
+const ON_CONTOUR = 1e-12;
+
+/**
+ * The turn rule of a root (a, b) on a contour (see above): 0 none, 1 or 2. `axisScale`:
+ * 1/T for x = jω when the sample period is known (else 0).
+ */
+function branchRule(a: number, b: number, discrete: boolean, axisScale: number): number {
+  if (!discrete) {
+    // Re r ≤ 0: dr = −Re r ≥ 0, never a turn; Re r > 0 but on the axis: the principal angle
+    if (!(a > 0)) return 0;
+    return a > ON_CONTOUR * Math.max(hypot(a, b), axisScale) ? 1 : 0;
+  }
+  if (a * a + b * b <= 1 + 2 * ON_CONTOUR) return 1;
+  if (!(a > 0)) return 0;
+  return b > 0 ? 2 : 1;
+}
+
+/** Whole turns to add to the principal angle of x − r for a root (a, b) under `rule`. */
+function turnOf(rule: number, a: number, b: number, xr: number, xi: number): number {
+  if (rule === 1) return xr < a && xi < b ? 1 : 0;
+  if (rule === 2) return xr < a && xi >= b ? -1 : 0;
+  return 0;
+}
+
+/**
+ * Whole turns (of 2π) by which the continuous phase of H at x on a response contour
+ * (x = jω, `discrete` false; x = e^{jωT}, `discrete` true) exceeds the principal root
+ * sum of responseAt: Σ over zeros less Σ over poles of each root's turns (see above).
+ * `axisScale` as for branchRule (x = jω only).
+ */
+export function branchTurns(e: Evaluator, xr: number, xi: number, discrete: boolean, axisScale = 0): number {
+  let t = 0;
+  for (let i = 0; i < e.zr.length; i++) t += turnOf(branchRule(e.zr[i], e.zi[i], discrete, axisScale), e.zr[i], e.zi[i], xr, xi);
+  for (let i = 0; i < e.pr.length; i++) t -= turnOf(branchRule(e.pr[i], e.pi[i], discrete, axisScale), e.pr[i], e.pi[i], xr, xi);
+  return t;
+}
+
+/**
+ * How far (deg) a phase of gridResponse may lie from phaseDegAt (the root-by-root sum of
+ * responseAt plus the same whole turns):
  * a bound with a wide margin on the rounding of either form (below 1e-12 deg on 2.5M
  * random points of random designs, roots on the grid and the unit circle included).
  */
@@ -257,9 +347,12 @@ const pairInRange = (sq: number): boolean => sq > PAIR_SQ_LO && sq < PAIR_SQ_HI;
  *   together again: ∠u + ∠v = ∠(u·v). So one atan2 serves up to four roots. Elsewhere,
  *   and for the roots left over, one atan2 each. The result is the same sum up to
  *   rounding, within PHASE_SLACK_DEG; point 0, which fixes the 360° shift of a discrete
- *   phase against the continuous one, takes the root-by-root sum itself.
+ *   phase against the continuous one, takes the root-by-root sum itself. Then every point
+ *   gets its whole turns relative to point 0 (see "Continuous phase along a response
+ *   contour" above; x = e^{jωT} when xr is given, else x = jω): phaseDeg[i] =
+ *   ∠·180/π + 360·(turns_i − turns_0), the same as phaseDegAt with turns0 = turns_0.
  */
-function gridResponse(e: Evaluator, xr: ArrayLike<number> | null, xi: ArrayLike<number>): Response {
+function gridResponse(e: Evaluator, xr: ArrayLike<number> | null, xi: ArrayLike<number>, axisScale: number): Response {
   const n = xi.length;
   if (accMag2.length < n) {
     accMag2 = new Float64Array(n);
@@ -348,6 +441,7 @@ function gridResponse(e: Evaluator, xr: ArrayLike<number> | null, xi: ArrayLike<
     for (let i = 0; i < n; i++) ph[i] -= Math.atan2(xi[i] - ai, (xr ? xr[i] : 0) - ar);
   }
   if (n > 0) ph[0] = phaseSum(e, xr ? xr[0] : 0, xi[0]);
+  const turns = n > 0 ? gridTurns(e, xr, xi, axisScale) : null;
   const magnitudeDb = new Array<number>(n);
   const phaseDeg = new Array<number>(n);
   for (let i = 0; i < n; i++) {
@@ -356,7 +450,55 @@ function gridResponse(e: Evaluator, xr: ArrayLike<number> | null, xi: ArrayLike<
     magnitudeDb[i] = db > MIN_DB && db < Infinity ? db : dbOf(e, mag2[i], xr ? xr[i] : 0, xi[i]);
     phaseDeg[i] = ph[i] * DEG;
   }
+  if (turns) {
+    const t0 = turns[0];
+    for (let i = 1; i < n; i++) if (turns[i] !== t0) phaseDeg[i] += 360 * (turns[i] - t0);
+  }
   return { magnitudeDb, phaseDeg };
+}
+
+/**
+ * Whole turns of every grid point of gridResponse (branchTurns at each point), or null
+ * when every one is 0. Roots whose rule cannot apply anywhere on the grid (no point left
+ * of the root at the needed height: the common case of real roots and lower members of
+ * pairs) are skipped without a pass over the points.
+ */
+function gridTurns(e: Evaluator, xr: ArrayLike<number> | null, xi: ArrayLike<number>, axisScale: number): Float64Array | null {
+  const n = xi.length;
+  const discrete = xr !== null;
+  let minXr = Infinity;
+  let minXi = Infinity;
+  let maxXi = -Infinity;
+  let extents = false;
+  let turns: Float64Array | null = null;
+  const { zr, zi, pr, pi } = e;
+  for (let r = 0; r < zr.length + pr.length; r++) {
+    const isZero = r < zr.length;
+    const a = isZero ? zr[r] : pr[r - zr.length];
+    const b = isZero ? zi[r] : pi[r - zr.length];
+    const rule = branchRule(a, b, discrete, axisScale);
+    if (rule === 0) continue;
+    if (!extents) {
+      for (let i = 0; i < n; i++) {
+        const x = xr ? xr[i] : 0;
+        if (x < minXr) minXr = x;
+        if (xi[i] < minXi) minXi = xi[i];
+        if (xi[i] > maxXi) maxXi = xi[i];
+      }
+      extents = true;
+    }
+    if (!(minXr < a) || (rule === 1 ? !(minXi < b) : !(maxXi >= b))) continue;
+    if (!turns) {
+      if (accTurns.length < n) accTurns = new Float64Array(Math.max(n, 2 * accTurns.length));
+      turns = accTurns;
+      turns.fill(0, 0, n);
+    }
+    const step = (rule === 1 ? 1 : -1) * (isZero ? 1 : -1);
+    for (let i = 0; i < n; i++) {
+      if ((xr ? xr[i] : 0) < a && (rule === 1 ? xi[i] < b : xi[i] >= b)) turns[i] += step;
+    }
+  }
+  return turns;
 }
 
 /** ∠H(x) (rad) as the sum of the root angles, as evalInto forms it. */
@@ -367,9 +509,16 @@ function phaseSum(e: Evaluator, xr: number, xi: number): number {
   return ph;
 }
 
-/** The phase (deg) responseAt gives at x = xr + j·xi: the sum of the root angles. */
-export function phaseDegAt(e: Evaluator, xr: number, xi: number): number {
-  return phaseSum(e, xr, xi) * DEG;
+/**
+ * The phase (deg) at x = xr + j·xi on a response contour (x = jω, or x = e^{jωT} when
+ * `discrete`), root by root: the principal root sum of responseAt plus 360° per whole turn
+ * of branchTurns beyond `turns0` (the turns of the contour's first grid point), as
+ * gridResponse plots it (`axisScale` as for continuousResponse: 1/T or 0).
+ */
+export function phaseDegAt(e: Evaluator, xr: number, xi: number, discrete: boolean, turns0: number, axisScale = 0): number {
+  const k = branchTurns(e, xr, xi, discrete, axisScale) - turns0;
+  const deg = phaseSum(e, xr, xi) * DEG;
+  return k === 0 ? deg : deg + 360 * k;
 }
 
 /** The dB value of evalInto from |H|² at x (the log-sum form where |H|² under- or overflows), floored at MIN_DB. */
@@ -400,7 +549,7 @@ export function unitCircleGrid(omegas: readonly number[], periodSec: number): Un
 export function discreteResponse(hIn: Zpk | Evaluator, omegas: number[] | UnitCircleGrid, periodSec: number, reference?: Response): Response & { shiftDeg: number } {
   const h = 'k' in hIn ? hIn : evaluator(hIn);
   const g = Array.isArray(omegas) ? unitCircleGrid(omegas, periodSec) : omegas;
-  const { magnitudeDb, phaseDeg } = gridResponse(h, g.re, g.im);
+  const { magnitudeDb, phaseDeg } = gridResponse(h, g.re, g.im, 0);
   const n = phaseDeg.length;
   let shiftDeg = 0;
   if (reference && n) shiftDeg = 360 * Math.round((reference.phaseDeg[0] - phaseDeg[0]) / 360);

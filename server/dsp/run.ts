@@ -12,6 +12,7 @@ import { MAX_ROOT_MAGNITUDE, type CompensatorInput } from '../../schemas/compens
 import { abs, cx } from './complex';
 import { DspInputError } from './errors';
 import {
+  branchTurns,
   closedLoopPoles,
   continuousDcGain,
   continuousResponse,
@@ -229,12 +230,15 @@ function run(req: DiscretizeRequest): DiscretizeResponse {
   const omegas = frequencyHz.map((f) => 2 * Math.PI * f);
   const bandHz = req.bandHz ?? nyqHz / 4;
   const contEval = evaluator(comp.zpk);
-  const contResp = continuousResponse(comp.zpk, omegas);
+  const contResp = continuousResponse(comp.zpk, omegas, T);
   // e^{jωT} on the grid, shared by every method's response
   const circle = unitCircleGrid(omegas, T);
-  // the continuous compensator at the band edge, shared by every method's band errors
+  // the continuous compensator at the band edge, shared by every method's band errors; its
+  // phase on the branch of the plotted one (whole turns counted from grid point 0; 1/T is
+  // the scale of a root on the jω axis, as continuousResponse takes it)
   const wBand = 2 * Math.PI * bandHz;
-  const contAtBand = responseAt(comp.zpk, cx(0, wBand));
+  const contTurns0 = branchTurns(contEval, 0, omegas[0], false, 1 / T);
+  const contAtBand = { db: responseAt(contEval, cx(0, wBand)).db, deg: phaseDegAt(contEval, 0, wBand, false, contTurns0, 1 / T) };
 
   // ---- plant and continuous loop
   let plantOut: DiscretizeResponse['plant'];
@@ -311,7 +315,7 @@ function run(req: DiscretizeRequest): DiscretizeResponse {
     const poleOrigin = pairRoots(d.zpk.poles, comp.zpk.poles, T, true);
     const de = evaluator(d.zpk);
     const resp = discreteResponse(de, circle, T, contResp);
-    const errs = bandErrors(contAtBand, contEval, de, T, frequencyHz, omegas, circle, bandHz, contResp, resp, resp.shiftDeg);
+    const errs = bandErrors(contAtBand, contEval, contTurns0, de, T, frequencyHz, omegas, circle, bandHz, contResp, resp, resp.shiftDeg);
     const stab = discreteStability(d.zpk.poles);
     const result: MethodResult = {
       method,
@@ -374,9 +378,11 @@ function illPosed(): DspInputError {
 
 /**
  * Largest |Δ dB| and |Δ deg| on grid points up to bandHz and at bandHz itself
- * (`rc`: the continuous response there). The phase errors are those of the root-by-root
- * phase sums (responseAt): the plotted phases may differ from them by PHASE_SLACK_DEG, so
- * a plotted error by twice that, and the grid points whose plotted error is within four
+ * (`rc`: the continuous response there, its phase by phaseDegAt). The phase errors are
+ * those of the root-by-root phases (phaseDegAt: the principal root sums plus the whole
+ * turns of the plotted branch, counted from grid point 0; `contTurns0` those of the
+ * continuous grid point 0): the plotted phases may differ from them by PHASE_SLACK_DEG,
+ * so a plotted error by twice that, and the grid points whose plotted error is within four
  * times that of the largest are evaluated again root by root (`cont`, `disc`: the
  * evaluators; the continuous point of grid point i is jω_i, the discrete one circle[i]).
  * Every other point's error is then below the largest, which with its first point is taken
@@ -385,6 +391,7 @@ function illPosed(): DspInputError {
 function bandErrors(
   rc: { db: number; deg: number },
   cont: Evaluator,
+  contTurns0: number,
   disc: Evaluator,
   T: number,
   fHz: number[],
@@ -417,20 +424,24 @@ function bandErrors(
   }
   // each plotted error is within 2·PHASE_SLACK_DEG of the exact one (both phases may differ)
   const nearMax = plotted - 4 * PHASE_SLACK_DEG;
+  const discTurns0 = fHz.length ? branchTurns(disc, circle.re[0], circle.im[0], true) : 0;
   for (let i = 0; i < inBand; i++) {
     if (!(Math.abs(dp[i] - cp[i]) >= nearMax)) continue;
-    let dDeg = phaseDegAt(disc, circle.re[i], circle.im[i]);
+    let dDeg = phaseDegAt(disc, circle.re[i], circle.im[i], true, discTurns0);
     if (shiftDeg !== 0) dDeg += shiftDeg;
-    const ep = Math.abs(dDeg - phaseDegAt(cont, 0, omegas[i]));
+    const ep = Math.abs(dDeg - phaseDegAt(cont, 0, omegas[i], false, contTurns0, 1 / T));
     if (ep > phV) {
       phV = ep;
       phF = fHz[i];
     }
   }
   const w = 2 * Math.PI * bandHz;
-  const rd = responseAt(disc, cx(Math.cos(w * T), Math.sin(w * T)));
-  const em = Math.abs(rd.db - rc.db);
-  const ep = Math.abs(rd.deg + shiftDeg - rc.deg);
+  const xr = Math.cos(w * T);
+  const xi = Math.sin(w * T);
+  const rdDb = responseAt(disc, cx(xr, xi)).db;
+  const rdDeg = phaseDegAt(disc, xr, xi, true, discTurns0);
+  const em = Math.abs(rdDb - rc.db);
+  const ep = Math.abs(rdDeg + shiftDeg - rc.deg);
   if (em > magV) {
     magV = em;
     magF = bandHz;

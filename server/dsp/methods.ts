@@ -75,7 +75,8 @@ const atOrigin = (r: Complex) => r.re === 0 && r.im === 0;
  * Matched pole–zero: z = e^{rT} for finite roots (s = 0 → z = 1 exactly), every zero at
  * infinity → z = −1. Gain matched at DC, K_d = K·Π zᵢ/(e^{zᵢT} − 1) · Π (e^{pᵢT} − 1)/pᵢ / 2^(np − nz)
  * (expm1 keeps it exact at high rates); where the DC gain is 0 or infinite (a root at
- * s = 0), |H_d(e^{jω₀T})| = |H(jω₀)| with the sign of K kept.
+ * s = 0), |H_d(e^{jω₀T})| = |H(jω₀)| with the sign of K kept (|H_d| from
+ * matchedUnitMagnitude, again without subtracting rounded exponentials).
  */
 export function matchedZpk(cont: Zpk, periodSec: number, prewarpRadPerSec?: number): Zpk {
   const T = periodSec;
@@ -96,13 +97,45 @@ export function matchedZpk(cont: Zpk, periodSec: number, prewarpRadPerSec?: numb
     ]);
   }
   const hc = abs(evalZpk(cont, cx(0, w0)));
-  const hd = abs(evalZpk(unit, exp(cx(0, w0 * T))));
+  const hd = matchedUnitMagnitude(cont, T, w0);
   if (!(hd > 0) || !Number.isFinite(hd) || !(hc > 0) || !Number.isFinite(hc)) {
     throw new DspInputError('matched pole–zero cannot match the gain at this prewarp frequency (a root lies on it)', [
       { path: 'prewarpHz', message: 'choose a prewarp frequency away from the roots on the imaginary axis' },
     ]);
   }
   return { ...unit, gain: Math.sign(cont.gain) * (hc / hd) };
+}
+
+/**
+ * |Π(x − zᵢ)/Π(x − pᵢ)| at x = e^{jω₀T} for the matched roots of `cont` (unit gain). Each
+ * finite root's factor is e^{jω₀T} − e^{rT} = e^{rT}·expm1((jω₀ − r)T): subtracting the two
+ * rounded exponentials instead loses the digits they share, which is most of them when
+ * ω₀T and rT are small (1e-8 relative at ω₀T ~ 1e-10: a PI (s + 0.01)/s at 10 MHz with
+ * prewarpHz 0.001); the complex expm1 (complex.ts: expm1 of the real part, cos − 1 as
+ * −2 sin²(θ/2)) keeps them. A zero at infinity (z = −1) gives |e^{jω₀T} + 1| = 2 cos(ω₀T/2)
+ * (ω₀T < π).
+ */
+function matchedUnitMagnitude(cont: Zpk, T: number, w0: number): number {
+  let m = 1;
+  for (const z of cont.zeros) m *= Math.exp(z.re * T) * abs(expm1(cx(-z.re * T, (w0 - z.im) * T)));
+  for (let k = cont.zeros.length; k < cont.poles.length; k++) m *= 2 * Math.cos((w0 * T) / 2);
+  for (const p of cont.poles) m /= Math.exp(p.re * T) * abs(expm1(cx(-p.re * T, (w0 - p.im) * T)));
+  return m;
+}
+
+/**
+ * H_d(1) of a matched model with gain kd: kd·2^(np − nz)·Π(1 − e^{zᵢT})/Π(1 − e^{pᵢT}), each
+ * 1 − e^{rT} as −expm1(rT) (the zpk product 1 − zᵢ subtracts a rounded e^{rT} from 1 and
+ * keeps only ~|rT|/ε of its digits: 1e-7 relative for a root at −0.1 rad/s at 10 MHz).
+ * Null with a pole at s = 0 (z = 1), 0 with a zero there.
+ */
+function matchedDcGain(cont: Zpk, T: number, kd: number): number | null {
+  if (cont.poles.some(atOrigin)) return null;
+  if (cont.zeros.some(atOrigin)) return 0;
+  let g = cx(kd * Math.pow(2, cont.poles.length - cont.zeros.length));
+  for (const z of cont.zeros) g = mul(g, scale(expm1(scale(z, T)), -1));
+  for (const p of cont.poles) g = div(g, scale(expm1(scale(p, T)), -1));
+  return Number.isFinite(g.re) ? g.re : null;
 }
 
 /**
@@ -313,7 +346,7 @@ export function discretizeZpk(
       break;
     case 'matched':
       zpk = matchedZpk(cont, T, opts.prewarpRadPerSec);
-      break;
+      return { zpk, tf: zpkToDiscreteTf(zpk), dcGain: matchedDcGain(cont, T, zpk.gain) };
     case 'zoh':
       return zohDiscretize(cont, T);
     default: {

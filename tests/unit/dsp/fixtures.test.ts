@@ -243,19 +243,17 @@ describe('prewarp and matched fixtures (scipy.signal.bilinear at the warped rate
     expect(missed).toBe(dcMatched.length);
   });
 
-  // Known loss, kept visible (see the edge designs in the generator): with a slow root and a
-  // low ω₀ at a very high rate, our matched gain at ω₀ differs from the exact rule by up to
-  // ~2e-8 (PI (s + 0.01)/s at 10 MHz, prewarpHz 0.001). It is the rounding of
-  // e^{jω₀T} − e^{rT} formed by subtraction; the mpmath value is the exact rule.
+  // The edge designs of the generator: a slow root and a low ω₀ at a very high rate, where
+  // e^{jω₀T} and e^{rT} share their first 8 to 10 digits (PI (s + 0.01)/s at 10 MHz,
+  // prewarpHz 0.001). Forming e^{jω₀T} − e^{rT} by subtraction lost up to ~2e-8 of the
+  // matched gain at ω₀; e^{rT}·expm1((jω₀ − r)T) keeps it. The mpmath value is the exact rule.
   describe.each(inGroup('edge'))('%s', (_name, e) => {
-    // computed in each test, so that an exception fails the plain test too (not only the
-    // one expected to fail)
     it('prewarp: mpmath substitution to 1e-12', () => {
       const o = ours(e);
       expect(err(o.prewarp, e.methods.prewarp.mpmath)).toBeLessThan(1e-12); // mpmath substitution
       expect(err(o.api.methods.prewarp!, e.methods.prewarp.mpmath)).toBeLessThan(1e-12);
     });
-    it.failing('matched: the DESIGN.md rule in mpmath to 1e-12 (known loss at ω₀ ≪ 1/T)', () => {
+    it('matched: the DESIGN.md rule in mpmath to 1e-12 (ω₀ ≪ 1/T)', () => {
       const o = ours(e);
       expect(err(o.matched, e.methods.matched.mpmath)).toBeLessThan(1e-12); // DESIGN.md matched rule in mpmath
       expect(err(o.api.methods.matched!, e.methods.matched.mpmath)).toBeLessThan(1e-12);

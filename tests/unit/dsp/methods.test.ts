@@ -2,6 +2,8 @@ import { discretizeZpk } from '../../../server/dsp/methods';
 import { evalZpk } from '../../../server/dsp/lti';
 import { continuousDcGain, discreteDcGain } from '../../../server/dsp/analysis';
 import { DspInputError } from '../../../server/dsp/errors';
+import { runDiscretize } from '../../../server/dsp/run';
+import { discretizeRequestSchema } from '../../../schemas/discretize';
 import type { Zpk } from '../../../server/dsp/types';
 import { c, expectComplexClose, relToLargest } from './helpers';
 
@@ -180,6 +182,44 @@ describe('matched pole–zero', () => {
       expect(Math.sign(d.zpk.gain)).toBe(Math.sign(K));
     }
     expect(() => discretizeZpk(piLead, 'matched', 100)).toThrow(DspInputError);
+  });
+
+  it('matches |H| at ω₀ without cancellation when ω₀T is tiny: PI (s + a)/s at 10 MHz, prewarpHz 0.001', () => {
+    // H_d = K_d (z − e^{−aT})/(z − 1); with θ = ω₀T and b = e^{−aT}, by the law of cosines
+    // |e^{jθ} − b|² = (1 − b)² + 4b·sin²(θ/2) and |e^{jθ} − 1| = 2 sin(θ/2), so the rule
+    // |H_d(e^{jθ})| = |H(jω₀)| = √(ω₀² + a²)/ω₀ gives K_d in closed form, every term cancellation-free
+    const a = 0.01;
+    const fs = 1e7;
+    const T = 1 / fs;
+    const w0 = 2 * Math.PI * 0.001;
+    const d = discretizeZpk({ zeros: [c(-a)], poles: [c(0)], gain: 1 }, 'matched', fs, { prewarpRadPerSec: w0 });
+    const b = Math.exp(-a * T);
+    const s2 = Math.sin((w0 * T) / 2);
+    const kd = ((Math.hypot(w0, a) / w0) * 2 * s2) / Math.sqrt(Math.expm1(-a * T) ** 2 + 4 * b * s2 * s2);
+    expect(Math.abs(d.tf.num[0] - kd)).toBeLessThanOrEqual(1e-15 * kd); // 1.0000000005 (subtraction gave 1.0000000202769237)
+    expect(d.tf.num[0]).toBe(d.zpk.gain);
+  });
+
+  it('reports H_d(1) = H(0) (the gain rule) for slow roots at high rates, to 1e-14', () => {
+    // the compute API's dcGain of the matched model; 1 − e^{rT} by subtraction kept ~|rT|/ε of its digits
+    const designs: { h: Zpk; fs: number }[] = [
+      { h: { zeros: [c(-0.001)], poles: [c(-0.1)], gain: 1e5 }, fs: 1e7 },
+      { h: lead, fs: 1e7 },
+      { h: { zeros: [c(-2), c(-0.1)], poles: [c(-30), c(-0.02)], gain: 40 }, fs: 1e6 },
+      { h: { zeros: [c(-2, 5), c(-2, -5)], poles: [c(-3, 8), c(-3, -8), c(-20)], gain: 7 }, fs: 2e5 },
+      { h: leadLagComplex, fs: 60 },
+    ];
+    const json = (r: { re: number; im: number }) => ({ re: r.re, im: r.im });
+    for (const { h, fs } of designs) {
+      const res = runDiscretize(discretizeRequestSchema.parse({ compensator: { form: 'zpk', zeros: h.zeros.map(json), poles: h.poles.map(json), gain: h.gain }, sampleRateHz: fs, methods: ['matched'] }));
+      const dc = continuousDcGain(h)!;
+      expect(Math.abs(res.methods.matched!.dcGain! - dc)).toBeLessThanOrEqual(1e-14 * Math.abs(dc));
+    }
+    // a pole at s = 0 (z = 1): infinite; a zero there: 0
+    const api = (zeros: number[], poles: number[]) =>
+      runDiscretize(discretizeRequestSchema.parse({ compensator: { form: 'zpk', zeros, poles, gain: 2 }, sampleRateHz: 1e6, methods: ['matched'], prewarpHz: 1 })).methods.matched!.dcGain;
+    expect(api([-0.5], [0])).toBeNull();
+    expect(api([0], [-0.5])).toBe(0);
   });
 });
 

@@ -24,8 +24,9 @@ export interface DiscreteResult {
   zpk: Zpk;
   tf: DiscreteTf;
   /**
-   * H(z = 1) where the method knows it better than the zpk product (ZOH: H(0), by
-   * step invariance); null when infinite. Absent: use the zpk.
+   * H(z = 1) from the structure without the zpk product's 1 − zᵢ, which cancels for roots
+   * near z = 1 (every method sets it: ZOH H(0) by step invariance; the others K_d times
+   * each root's 1 − z in a form exact for its map); null when infinite. Absent: use the zpk.
    */
   dcGain?: number | null;
 }
@@ -70,6 +71,39 @@ export function backwardEulerZpk(cont: Zpk, periodSec: number): Zpk {
 
 /** True when a root lies exactly at s = 0. */
 const atOrigin = (r: Complex) => r.re === 0 && r.im === 0;
+
+/**
+ * H_d(1) of a bilinear model (s = c·(z − 1)/(z + 1)) with gain kd: kd·2^(np − nz)·Π(1 − zᵢ)/Π(1 − pᵢ)
+ * with 1 − z = −2r/(c − r) for z = (c + r)/(c − r), exactly (a zero at infinity, z = −1, gives
+ * 1 − z = 2). The zpk product subtracts the rounded z from 1 and keeps only ~|r/c|/ε of its
+ * digits (2e-6 relative for a root at −0.001 rad/s at 10 MHz). Null with a pole at s = 0
+ * (z = 1 exactly), 0 with a zero there.
+ */
+function bilinearDcGain(cont: Zpk, c: number, kd: number): number | null {
+  if (cont.poles.some(atOrigin)) return null;
+  if (cont.zeros.some(atOrigin)) return 0;
+  const cc = cx(c);
+  let g = cx(kd * Math.pow(2, cont.poles.length - cont.zeros.length));
+  for (const z of cont.zeros) g = mul(g, div(scale(z, -2), sub(cc, z)));
+  for (const p of cont.poles) g = div(g, div(scale(p, -2), sub(cc, p)));
+  return Number.isFinite(g.re) ? g.re : null;
+}
+
+/**
+ * H_d(1) of a backward-Euler model (s = (z − 1)/(T z)) with gain kd: kd·Π(1 − zᵢ)/Π(1 − pᵢ) with
+ * 1 − z = −rT/(1 − rT) for z = 1/(1 − rT), exactly (a zero at infinity, z = 0, gives 1 − z = 1;
+ * the zpk product loses digits to 1 − z as bilinearDcGain says). Null with a pole at s = 0
+ * (z = 1 exactly), 0 with a zero there.
+ */
+function backwardEulerDcGain(cont: Zpk, T: number, kd: number): number | null {
+  if (cont.poles.some(atOrigin)) return null;
+  if (cont.zeros.some(atOrigin)) return 0;
+  const one = cx(1);
+  let g = cx(kd);
+  for (const z of cont.zeros) g = mul(g, div(scale(z, -T), sub(one, scale(z, T))));
+  for (const p of cont.poles) g = div(g, div(scale(p, -T), sub(one, scale(p, T))));
+  return Number.isFinite(g.re) ? g.re : null;
+}
 
 /**
  * Matched pole–zero: z = e^{rT} for finite roots (s = 0 → z = 1 exactly), every zero at
@@ -325,8 +359,8 @@ function bilinearConstant(method: 'tustin' | 'prewarp', T: number, w0?: number):
 /**
  * Discretizes a continuous zpk (s in rad/s) at `sampleRateHz` by `method`.
  * Returns zpk in z (zeros at z = ∞ omitted) and the difference-equation tf
- * (num/den of z⁰ … z⁻ⁿ, equal lengths n + 1, leading zeros kept).
- * Throws DspInputError when a needed ω₀ is missing.
+ * (num/den of z⁰ … z⁻ⁿ, equal lengths n + 1, leading zeros kept), and H(z = 1) from the
+ * structure (DiscreteResult.dcGain). Throws DspInputError when a needed ω₀ is missing.
  */
 export function discretizeZpk(
   cont: Zpk,
@@ -335,18 +369,21 @@ export function discretizeZpk(
   opts: DiscretizeOptions = {},
 ): DiscreteResult {
   const T = 1 / sampleRateHz;
-  let zpk: Zpk;
   switch (method) {
     case 'tustin':
-    case 'prewarp':
-      zpk = bilinearZpk(cont, bilinearConstant(method, T, opts.prewarpRadPerSec));
-      break;
-    case 'backward-euler':
-      zpk = backwardEulerZpk(cont, T);
-      break;
-    case 'matched':
-      zpk = matchedZpk(cont, T, opts.prewarpRadPerSec);
+    case 'prewarp': {
+      const c = bilinearConstant(method, T, opts.prewarpRadPerSec);
+      const zpk = bilinearZpk(cont, c);
+      return { zpk, tf: zpkToDiscreteTf(zpk), dcGain: bilinearDcGain(cont, c, zpk.gain) };
+    }
+    case 'backward-euler': {
+      const zpk = backwardEulerZpk(cont, T);
+      return { zpk, tf: zpkToDiscreteTf(zpk), dcGain: backwardEulerDcGain(cont, T, zpk.gain) };
+    }
+    case 'matched': {
+      const zpk = matchedZpk(cont, T, opts.prewarpRadPerSec);
       return { zpk, tf: zpkToDiscreteTf(zpk), dcGain: matchedDcGain(cont, T, zpk.gain) };
+    }
     case 'zoh':
       return zohDiscretize(cont, T);
     default: {
@@ -354,6 +391,5 @@ export function discretizeZpk(
       throw new Error(`unknown method ${String(never)}`);
     }
   }
-  return { zpk, tf: zpkToDiscreteTf(zpk) };
 }
 

@@ -14,7 +14,8 @@ import { defaultPrewarpRadPerSec, discretizeRequestSchema } from '../../../schem
 import { compensatorSchema } from '../../../schemas/compensator';
 import { relToLargest } from './helpers';
 
-type Ref = { num: number[]; den: number[] };
+/** num/den of a reference model; mpmath entries also hold dcGain, H_d(1) = N(1)/D(1) at 50 digits (null: a pole at s = 0). */
+type Ref = { num: number[]; den: number[]; dcGain?: number | null };
 type Case = { name: string; kind: string; compensator: unknown; sampleRateHz: number; methods: Record<'tustin' | 'zoh' | 'backward-euler', { scipy: Ref; mpmath: Ref }> };
 const cases = (data as unknown as { cases: Case[] }).cases;
 const stress = (data as unknown as { stress: Case[] }).stress;
@@ -258,5 +259,40 @@ describe('prewarp and matched fixtures (scipy.signal.bilinear at the warped rate
       expect(err(o.matched, e.methods.matched.mpmath)).toBeLessThan(1e-12); // DESIGN.md matched rule in mpmath
       expect(err(o.api.methods.matched!, e.methods.matched.mpmath)).toBeLessThan(1e-12);
     });
+  });
+});
+
+describe('reported dcGain against H_d(1) = N(1)/D(1) of every mpmath model above (50 digits)', () => {
+  // The API's dcGain is H_d(1) "from the structure". The zpk product Π(1 − zᵢ)/Π(1 − pᵢ) lost
+  // ~ε·fs/|r| relative to 1 − z_d for a root r (1e-11 for random designs, 2e-9 for the stress
+  // designs at 1 MHz); the mpmath value is the model's own, summed at 50 digits.
+  const rel = (ours: number | null, ref: number | null) =>
+    ours === null || ref === null ? (ours === ref ? 0 : Infinity) : ref === 0 ? Math.abs(ours) : Math.abs(ours - ref) / Math.abs(ref);
+
+  it('tustin, backward Euler and ZOH of every cont2discrete and stress design to 4e-15', () => {
+    const missed: string[] = [];
+    for (const c of [...cases, ...stress]) {
+      const res = runDiscretize(discretizeRequestSchema.parse({ compensator: c.compensator, sampleRateHz: c.sampleRateHz, methods: [...METHODS] }));
+      for (const m of METHODS) {
+        const e = rel(res.methods[m]!.dcGain, c.methods[m].mpmath.dcGain!);
+        if (!(e <= 4e-15)) missed.push(`${c.name} ${m}: ${e.toExponential(2)}`); // mpmath N(1)/D(1)
+      }
+    }
+    expect(missed).toEqual([]);
+  });
+
+  it('prewarp and matched of every warped entry to 4e-15', () => {
+    const missed: string[] = [];
+    for (const e of warped) {
+      const res = ours(e).api;
+      for (const m of ['prewarp', 'matched'] as const) {
+        const d = rel(res.methods[m]!.dcGain, e.methods[m].mpmath.dcGain!);
+        if (!(d <= 4e-15)) missed.push(`${e.name} ${m}: ${d.toExponential(2)}`); // mpmath N(1)/D(1)
+      }
+    }
+    expect(missed).toEqual([]);
+    // a pole at s = 0 is listed as null, a zero there as 0
+    expect(warped.some((e) => e.methods.prewarp.mpmath.dcGain === null)).toBe(true);
+    expect(warped.some((e) => e.methods.prewarp.mpmath.dcGain === 0)).toBe(true);
   });
 });

@@ -223,6 +223,47 @@ describe('matched pole–zero', () => {
   });
 });
 
+describe('reported DC gain of every method at high oversampling', () => {
+  // Identity of every method: s = 0 ↦ z = 1 (bilinear (c + 0)/(c − 0), backward Euler 1/(1 − 0),
+  // matched e^0; ZOH by step invariance), so H_d(1) = H(0) = K·Π(−zᵢ)/Π(−pᵢ) exactly. The zpk
+  // product 1 − z_d subtracts a rounded z_d ≈ 1 and keeps ~|r|/(c·ε) of its digits (2e-6
+  // relative for a root at −0.001 rad/s at 10 MHz).
+  const json = (r: { re: number; im: number }) => ({ re: r.re, im: r.im });
+  const api = (h: Zpk, fs: number, prewarpHz = 1) =>
+    runDiscretize(discretizeRequestSchema.parse({ compensator: { form: 'zpk', zeros: h.zeros.map(json), poles: h.poles.map(json), gain: h.gain }, sampleRateHz: fs, prewarpHz }));
+
+  it('is H(0) to 1e-14 for roots at −0.001 rad/s at 10 MHz (tustin, prewarp, backward Euler; ZOH and matched alike), null or 0 with a root at s = 0', () => {
+    const designs: { h: Zpk; fs: number; prewarpHz?: number }[] = [
+      { h: { zeros: [c(-0.001)], poles: [c(-0.1)], gain: 1e5 }, fs: 1e7 },
+      { h: { zeros: [c(-0.001)], poles: [c(-100)], gain: 1e5 }, fs: 1e7, prewarpHz: 1e6 },
+      { h: { zeros: [c(-0.002)], poles: [c(-0.001), c(-0.003)], gain: -3 }, fs: 1e7, prewarpHz: 0.001 },
+      { h: { zeros: [c(-0.001, 0.002), c(-0.001, -0.002)], poles: [c(-0.001), c(-0.004, 0.003), c(-0.004, -0.003)], gain: 2 }, fs: 1e7 },
+      { h: { zeros: [], poles: [c(-0.001), c(-0.002)], gain: 7 }, fs: 1e7 },
+      { h: leadLagComplex, fs: 1e6 },
+    ];
+    const missed: string[] = [];
+    designs.forEach(({ h, fs, prewarpHz }, i) => {
+      const res = api(h, fs, prewarpHz);
+      const dc = continuousDcGain(h)!;
+      for (const m of ['tustin', 'prewarp', 'backward-euler', 'zoh', 'matched'] as const) {
+        const rel = Math.abs(res.methods[m]!.dcGain! - dc) / Math.abs(dc);
+        if (!(rel <= 1e-14)) missed.push(`design ${i} ${m}: ${rel.toExponential(2)}`); // H_d(1) = H(0)
+      }
+    });
+    expect(missed).toEqual([]);
+    // s = 0 ↦ z = 1 stays exact: null with a pole there, 0 with a zero there (null with both)
+    const cases: { h: Zpk; dc: null | 0 }[] = [
+      { h: piLead, dc: null },
+      { h: { zeros: [c(0)], poles: [c(-0.001)], gain: 2 }, dc: 0 },
+      { h: { zeros: [c(0), c(-0.5)], poles: [c(0), c(-0.001)], gain: 2 }, dc: null },
+    ];
+    for (const { h, dc } of cases) {
+      const res = api(h, 1e7, 0.01);
+      for (const m of ['tustin', 'prewarp', 'backward-euler', 'zoh', 'matched'] as const) expect({ m, dc: res.methods[m]!.dcGain }).toEqual({ m, dc });
+    }
+  });
+});
+
 describe('worked example: the lead 25(s + 3)/(s + 18) at 250 Hz (Tustin by hand)', () => {
   it('gives b0 = 25(500 + 3)/(500 + 18), zero (500 − 3)/(500 + 3), pole (500 − 18)/(500 + 18)', () => {
     // hand computation with 2/T = 500 rad/s

@@ -278,8 +278,8 @@ let accTurns = new Float64Array(512);
  * 1e-16 in ln|z|) and far below any grid spacing (the step at such a root is narrower
  * than ON_CONTOUR·max(|s|, 1/T) rad/s). On the contour, a root keeps the step its principal
  * angle makes where x passes it: +180° (x − r turns from pointing down to pointing up
- * through the right), but −180° for a root at z = −1 when rounding put the Nyquist grid
- * point a hair beyond θ = π (below the real axis; then x − r points straight down).
+ * through the right). A root at z = −1 is never passed: the contour ends there, at
+ * θ = fl(π) just above the real axis (circleAngle), and its angle keeps the limit +90°.
  */
 const ON_CONTOUR = 1e-12;
 
@@ -528,7 +528,28 @@ function dbOf(e: Evaluator, mag2: number, xr: number, xi: number): number {
   return Number.isFinite(db) ? Math.max(MIN_DB, db) : db > 0 ? -MIN_DB : MIN_DB;
 }
 
-/** The points e^{jωT} of a frequency grid (shared by every method at one sample period). */
+/**
+ * θ = ωT of the point e^{jθ} for ω (rad/s) up to Nyquist, at most π. At Nyquist ω = 2π·(fs/2)
+ * and T = 1/fs, and the rounded product lands a hair above π for about one sample rate in
+ * seven (fs = 13 Hz): e^{jθ} then lies below the real axis, past z = −1, and a zero at
+ * z = −1 (Tustin's zeros from infinity) turns its angle from +90° to −90° there, a −180° step
+ * of the plotted phase at the last grid point. Clamped, the point is e^{j·fl(π)} = −1 + 1.2e-16j,
+ * z = −1 on the side the contour comes from (a root at −1 keeps its limit angle +90°; every
+ * other factor is its value at z = −1 to 1e-16; numpy's e^{jπ} is the same point). Taking
+ * sin θ = 0 exactly instead would give a root at −1 the angle atan2(0, 0) = 0, a −90° step.
+ */
+export function circleAngle(omega: number, periodSec: number): number {
+  const wt = omega * periodSec;
+  return wt > Math.PI && wt <= PAST_NYQUIST ? Math.PI : wt;
+}
+/**
+ * ωT up to this is Nyquist overshot by rounding (grid ends: 1 ulp; a crossover refined at
+ * the top end: ~1e-13) and is taken as π; beyond it (no point of a grid, only a non-finite
+ * ω from a failed refinement) circleAngle leaves ωT alone, as before.
+ */
+const PAST_NYQUIST = Math.PI * (1 + 1e-9);
+
+/** The points e^{jωT} of a frequency grid (shared by every method at one sample period; ωT by circleAngle). */
 export interface UnitCircleGrid {
   re: number[];
   im: number[];
@@ -538,7 +559,7 @@ export function unitCircleGrid(omegas: readonly number[], periodSec: number): Un
   const re = new Array<number>(n);
   const im = new Array<number>(n);
   for (let i = 0; i < n; i++) {
-    const wt = omegas[i] * periodSec;
+    const wt = circleAngle(omegas[i], periodSec);
     re[i] = Math.cos(wt);
     im[i] = Math.sin(wt);
   }
@@ -574,7 +595,8 @@ const wrap180 = (deg: number) => {
 
 /**
  * Where a loop is evaluated for its crossovers: a log grid of ω on [lo, hi] rad/s with
- * its points x = jω (continuous loop, periodSec null) or x = e^{jωT} (discrete loop).
+ * its points x = jω (continuous loop, periodSec null) or x = e^{jωT} (discrete loop; ωT by
+ * circleAngle, so hi = π/T is z = −1).
  * The same grid serves every method of a request (it depends only on T and ω₀).
  */
 export interface CrossingGrid {
@@ -594,17 +616,21 @@ export function crossingGrid(lo: number, hi: number, points: number, periodSec: 
       xr[i] = 0;
       xi[i] = w;
     } else {
-      xr[i] = Math.cos(w * periodSec);
-      xi[i] = Math.sin(w * periodSec);
+      const wt = circleAngle(w, periodSec);
+      xr[i] = Math.cos(wt);
+      xi[i] = Math.sin(wt);
     }
   }
   return { ws, xr, xi, periodSec };
 }
 
-/** lnMagPhaseInto at the point of ω (jω or e^{jωT}); `want` as there. */
+/** lnMagPhaseInto at the point of ω (jω, or e^{jωT} with ωT by circleAngle); `want` as there. */
 function loopAt(e: Evaluator, periodSec: number | null, w: number, want: number): void {
   if (periodSec === null) lnMagPhaseInto(e, 0, w, want);
-  else lnMagPhaseInto(e, Math.cos(w * periodSec), Math.sin(w * periodSec), want);
+  else {
+    const wt = circleAngle(w, periodSec);
+    lnMagPhaseInto(e, Math.cos(wt), Math.sin(wt), want);
+  }
 }
 
 /** Phase at ω on the branch nearest `ref` (rad). */

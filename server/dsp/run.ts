@@ -13,6 +13,7 @@ import { abs, cx } from './complex';
 import { DspInputError } from './errors';
 import {
   branchTurns,
+  circleAngle,
   closedLoopPoles,
   continuousDcGain,
   continuousResponse,
@@ -435,9 +436,9 @@ function bandErrors(
       phF = fHz[i];
     }
   }
-  const w = 2 * Math.PI * bandHz;
-  const xr = Math.cos(w * T);
-  const xi = Math.sin(w * T);
+  const wt = circleAngle(2 * Math.PI * bandHz, T);
+  const xr = Math.cos(wt);
+  const xi = Math.sin(wt);
   const rdDb = responseAt(disc, cx(xr, xi)).db;
   const rdDeg = phaseDegAt(disc, xr, xi, true, discTurns0);
   const em = Math.abs(rdDb - rc.db);

@@ -335,7 +335,7 @@ function run(req: DiscretizeRequest): DiscretizeResponse {
       ...errs,
     };
     if (plantD && plantC && continuousLoop && loopGrid) {
-      const loop = discreteLoop(d, plantD, req.delaySamples, T, contLoopPoles, loopGrid, stepSamples, fullSamples);
+      const loop = discreteLoop(method, d, plantD, req.delaySamples, T, contLoopPoles, loopGrid, stepSamples, fullSamples);
       result.closedLoopPoles = loop.closedLoopPoles.map((p) => p.z as Complex);
       result.loop = loop;
       if (continuousLoop.stable && !loop.stable) {
@@ -371,9 +371,24 @@ function run(req: DiscretizeRequest): DiscretizeResponse {
   };
 }
 
+/** The continuous loop with the plant is ill-posed: 1 + C(s = ∞)·P(s = ∞) = 0. */
 function illPosed(): DspInputError {
   return new DspInputError('the loop is ill-posed: 1 + C(∞)·P(∞) = 0', [
     { path: 'plant', message: 'the closed loop has no proper transfer function with this plant (1 + C·P vanishes at infinite frequency)' },
+  ]);
+}
+
+/**
+ * A sampled loop is ill-posed where the continuous one is not: 1 + C_d(z = ∞)·P_d(z = ∞) = 0
+ * with C_d by `method` and P_d by ZOH (C_d(∞) is C at the s the method sends z = ∞ to, e.g.
+ * C(2/T) for Tustin; without the delay only, which makes the loop strictly proper).
+ */
+function sampledIllPosed(method: MethodName): DspInputError {
+  return new DspInputError(`the sampled loop of ${method} is ill-posed: 1 + C_d(z = ∞)·P_d(z = ∞) = 0`, [
+    {
+      path: 'plant',
+      message: `with ${method}, the sampled closed loop has no proper transfer function with this plant (1 + C_d·P_d vanishes at z = ∞; C_d by ${method}, P_d by ZOH); a one-sample computation delay (delaySamples: 1) avoids it`,
+    },
   ]);
 }
 
@@ -470,8 +485,9 @@ function stepOut(y: number[], h: number, finalValue: number | null): StepRespons
   return uniformStep(y, y.length, h, finalValue, y.length, MAX_STEP_POINTS);
 }
 
-/** The sampled loop: compensator by `method`, plant by ZOH, optional one-sample delay. */
+/** The sampled loop: compensator `c` by `method`, plant by ZOH, optional one-sample delay. */
 function discreteLoop(
+  method: MethodName,
   c: DiscreteResult,
   p: DiscreteResult,
   delay: 0 | 1,
@@ -484,7 +500,7 @@ function discreteLoop(
   const lNum = polyMul(c.tf.num, p.tf.num);
   const lDen = polyMul(c.tf.den, p.tf.den);
   const cl = closedLoopPoles(lNum, lDen, delay);
-  if (!(Math.abs(cl.lead) > 1e-12)) throw illPosed();
+  if (!(Math.abs(cl.lead) > 1e-12)) throw sampledIllPosed(method);
   const loopZpk: Zpk = {
     zeros: [...c.zpk.zeros, ...p.zpk.zeros],
     poles: [...c.zpk.poles, ...p.zpk.poles, ...new Array(delay).fill(null).map(() => cx(0))],

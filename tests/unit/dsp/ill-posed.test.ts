@@ -2,7 +2,8 @@
  * Ill-posed loops: 1 + L(∞) = 0 (L = C·P, negative unity feedback) leaves the closed loop
  * without a proper transfer function (the definition of well-posedness of a feedback
  * loop). The compute API answers 400 naming `plant`, for the continuous loop and for each
- * sampled loop, and answers every loop where 1 + L(∞) is small but not zero.
+ * sampled loop (there 1 + C_d(z = ∞)·P_d(z = ∞) = 0, the message naming the method that gave
+ * C_d), and answers every loop where 1 + L(∞) is small but not zero.
  */
 import { closedLoopPoles } from '../../../server/dsp/analysis';
 import { DspInputError } from '../../../server/dsp/errors';
@@ -26,6 +27,14 @@ function expectIllPosed(body: DiscretizeRequestBody) {
   const e = refusal(body);
   expect(e.message).toBe('the loop is ill-posed: 1 + C(∞)·P(∞) = 0');
   expect(e.issues.map((i) => i.path)).toEqual(['plant']);
+}
+
+/** The sampled loop of `method` is refused: its own message, naming the method, still path `plant`. */
+function expectSampledIllPosed(body: DiscretizeRequestBody, method: string) {
+  const e = refusal(body);
+  expect(e.message).toBe(`the sampled loop of ${method} is ill-posed: 1 + C_d(z = ∞)·P_d(z = ∞) = 0`);
+  expect(e.issues.map((i) => i.path)).toEqual(['plant']);
+  expect(e.issues[0].message).toContain(`with ${method}, the sampled closed loop`);
 }
 
 // the plant s/(s + 1): P(∞) = 1, and its ZOH model keeps b0 = D = P(∞) = 1
@@ -75,7 +84,7 @@ describe('sampled loops ill-posed where the continuous loop is not', () => {
     // fs = 100: 2/T = 200, C(200) = −2·(200 + 56)/(200 + 312) = −1 exactly; P_d(∞) = 1: 1 + L_d(∞) = 0.
     // The continuous loop: 1 + C(∞)P(∞) = 1 − 2 = −1, well-posed.
     const body: DiscretizeRequestBody = { compensator: { form: 'zpk', zeros: [-56], poles: [-312], gain: -2 }, plant, sampleRateHz: 100, methods: ['tustin'] };
-    expectIllPosed(body);
+    expectSampledIllPosed(body, 'tustin');
     // a one-sample delay makes L_d = C_d·P_d·z⁻¹ strictly proper: 1 + L_d(∞) = 1, answered with n + 1 = 3 poles
     const delayed = run({ ...body, delaySamples: 1 });
     expect(delayed.methods.tustin!.loop!.closedLoopPoles).toHaveLength(3);
@@ -88,7 +97,9 @@ describe('sampled loops ill-posed where the continuous loop is not', () => {
   it('backward Euler: C_d(z = ∞) = C(s = 1/T) (s = (z − 1)/(Tz) → 1/T); refused, answered with the delay', () => {
     // fs = 1: C(1) = −2·(1 + 1)/(1 + 3) = −1 exactly; continuous 1 + C(∞)P(∞) = −1
     const body: DiscretizeRequestBody = { compensator: { form: 'zpk', zeros: [-1], poles: [-3], gain: -2 }, plant, sampleRateHz: 1, methods: ['backward-euler', 'zoh'] };
-    expectIllPosed(body);
+    expectSampledIllPosed(body, 'backward-euler');
+    // the method named is the one whose loop is ill-posed, not the first asked for
+    expectSampledIllPosed({ ...body, methods: ['zoh', 'backward-euler'] }, 'backward-euler');
     expect(run({ ...body, delaySamples: 1 }).methods['backward-euler']!.loop!.closedLoopPoles).toHaveLength(3);
     // ZOH keeps b0 = C(∞) = −2: its loop alone is well-posed
     expect(run({ ...body, methods: ['zoh'] }).methods.zoh!.loop!.closedLoopPoles).toHaveLength(2);

@@ -662,6 +662,8 @@ function bisectCrossing(e: Evaluator, T: number | null, a: number, b: number, mo
   if (f1 === 0) return b;
   let side = 0;
   for (let k = 0; k < 100 && Math.abs(x1 - x0) > 1e-15 * Math.max(1, Math.abs(x0)); k++) {
+    // values at rounding level may lose the sign change (a phase lying on the line over a stretch)
+    if (Math.sign(f0) === Math.sign(f1)) break;
     const x = (x0 * f1 - x1 * f0) / (f1 - f0);
     const fx = crossingValue(e, T, Math.exp(x), mode, ref, line);
     if (fx === 0) return Math.exp(x);
@@ -678,7 +680,10 @@ function bisectCrossing(e: Evaluator, T: number | null, a: number, b: number, mo
     }
     if (Math.abs(fx) < 1e-15) break;
   }
-  return Math.exp((x0 * f1 - x1 * f0) / (f1 - f0));
+  if (Math.sign(f0) !== Math.sign(f1)) return Math.exp((x0 * f1 - x1 * f0) / (f1 - f0));
+  // no sign change (the line touched at an end, or values at rounding level over a
+  // stretch): the end nearer the line, never an extrapolation beyond the bracket
+  return Math.exp(Math.abs(f0) <= Math.abs(f1) ? x0 : x1);
 }
 
 // Grid values of findCrossings (module scratch, grown as needed): the products

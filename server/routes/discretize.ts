@@ -4,7 +4,7 @@ import { discretizeRequestSchema, discretizeResponseSchema } from '../../schemas
 import type { AppContext } from '../context';
 import { requireUser } from '../auth/roles';
 import { parseOr400 } from '../http/errors';
-import { packedAnswerJson } from '../http/packed-series';
+import { packedAnswerBody } from '../http/packed-series';
 import { runDiscretize } from '../dsp';
 
 /** The stateless compute API of DESIGN.md: a continuous compensator in, discrete implementations out. */
@@ -21,7 +21,7 @@ export function discretizeRoutes(ctx: AppContext): Router {
     const out = runDiscretize(body);
     // the compute time alone, for clients and for `npm run bench`
     res.setHeader('Server-Timing', `compute;dur=${(performance.now() - t0).toFixed(3)}`);
-    if (body.seriesFormat === 'packed') res.type('application/json').send(packedAnswerJson(out));
+    if (body.seriesFormat === 'packed') res.type('application/json').send(packedAnswerBody(out));
     else res.json(out);
   });
   return r;

@@ -3,7 +3,7 @@
  * little-endian, in base64 (RFC 4648). The reference bytes are IEEE 754's encodings,
  * checked with Python's struct.pack('<d', …) and base64.b64encode.
  */
-import { packAnswer, packedAnswerJson, packSeries } from '../../../server/http/packed-series';
+import { packAnswer, packedAnswerBody, packSeries } from '../../../server/http/packed-series';
 import { runDiscretize } from '../../../server/dsp';
 import { discretizeRequestSchema, discretizeResponseSchema } from '../../../schemas/discretize';
 import { packedSeriesSchema, seriesSchema, unpackSeries } from '../../../schemas/series';
@@ -49,7 +49,7 @@ describe('packed series', () => {
   });
 });
 
-describe('the packed answer as JSON text', () => {
+describe('the packed answer body', () => {
   // runDiscretize answers of a spread of designs (with and without a plant, every method)
   const requests = [
     { compensator: { form: 'zpk', zeros: [-3], poles: [-18], gain: 25 }, sampleRateHz: 250, prewarpHz: 1.2, plant: { form: 'tf', num: [8], den: [1, 5, 0] } },
@@ -57,10 +57,11 @@ describe('the packed answer as JSON text', () => {
     { compensator: { form: 'tf', num: [2, 6], den: [1, 5, 0] }, sampleRateHz: 100, prewarpHz: 3 },
     { compensator: { form: 'zpk', zeros: [{ re: -2, im: 5 }, { re: -2, im: -5 }], poles: [-30, -40], gain: -4 }, sampleRateHz: 1000 },
   ];
-  it.each(requests.map((r, i) => [i, r] as const))('is JSON.stringify(packAnswer(answer)) character for character (request %i)', (_i, body) => {
+  it.each(requests.map((r, i) => [i, r] as const))('is the UTF-8 of JSON.stringify(packAnswer(answer)) byte for byte (request %i)', (_i, body) => {
     const answer = runDiscretize(discretizeRequestSchema.parse(body));
-    const text = packedAnswerJson(answer);
-    expect(text).toBe(JSON.stringify(packAnswer(answer)));
+    const bytes = packedAnswerBody(answer);
+    expect(bytes.equals(Buffer.from(JSON.stringify(packAnswer(answer)), 'utf8'))).toBe(true);
+    const text = bytes.toString('utf8');
     // and parses back to the very numbers of the answer
     expect(discretizeResponseSchema.parse(JSON.parse(text))).toEqual(discretizeResponseSchema.parse(JSON.parse(JSON.stringify(answer))));
   });

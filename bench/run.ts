@@ -4,8 +4,11 @@
  *  - POST /api/v1/discretize with all five methods, a plant and 400 response points, once
  *    with the series packed (what the web editor asks for) and once as JSON numbers: the
  *    server time per request from arrival to headers (Server-Timing app: middleware, session,
- *    validation, computation, serialisation), the computation alone, and the loopback round
- *    trip, median and p95;
+ *    validation, computation, serialisation) with one client waiting for each answer (the
+ *    server idles for the client's round trip before each request, and a processor that has
+ *    just been idle runs slower here) and with the next request always queued (pipelining,
+ *    bench/pipelined.ts: the server's own cost when busy), the computation alone, and the
+ *    loopback round trip, median and p95;
  *  - requests per second of each under a loopback load (autocannon, 8 connections);
  *  - bundle generation time (median, p95), when the code generator is present.
  * Each format is measured in steady state: 1000 requests first let V8 optimise the hot code
@@ -27,6 +30,7 @@ import { seedDemo, DEMO_PASSWORD } from '../server/seed';
 import { benchBundle } from './bundle';
 import { summary } from './stats';
 import { freePort } from '../server/http/ports';
+import { pipelinedServerTimes } from './pipelined';
 
 const ROOT = path.resolve(__dirname, '..');
 
@@ -110,7 +114,12 @@ async function main() {
       const w = summary(whole);
       const c = summary(compute);
       const rt = summary(roundTrip);
-      rows.push([`discretize, ${label}: server time per request (arrival to headers)`, w.median.toFixed(3), w.p95.toFixed(3), `ms, n=${w.n}, target median ≤ 2`]);
+      rows.push([`discretize, ${label}: server time per request, one client (arrival to headers)`, w.median.toFixed(3), w.p95.toFixed(3), `ms, n=${w.n}, target median ≤ 2`]);
+      const busy = summary(await pipelinedServerTimes({
+        port, path: '/api/v1/discretize', headers: { 'Content-Type': 'application/json', Cookie: headers.cookie, 'X-CSRF-Token': csrfToken }, body,
+        requests: 200 + REQUESTS, warmUp: 200,
+      }));
+      rows.push(['  server time per request, next request always queued (pipelined)', busy.median.toFixed(3), busy.p95.toFixed(3), `ms, n=${busy.n}`]);
       rows.push(['  of which computation', c.median.toFixed(3), c.p95.toFixed(3), `ms, n=${c.n}`]);
       rows.push(['  loopback round trip, one client', rt.median.toFixed(3), rt.p95.toFixed(3), `ms, answer ${(bytes / 1024).toFixed(0)} KiB`]);
       if (!LOAD) continue;

@@ -10,6 +10,7 @@ import { OpenApiRegistry } from './openapi';
 import { createCsrf, createPassport, createSessionMiddleware } from './auth/session';
 import { errorHandler, notFoundApi } from './http/errors';
 import { serverTiming } from './http/timing';
+import { apiSecurityHeaders } from './http/security-headers';
 import { authRoutes } from './routes/auth';
 import { memberRoutes } from './routes/members';
 import { apiRoutes } from './routes';
@@ -40,19 +41,7 @@ export function createApp(opts: CreateAppOptions): { app: Express; close: () => 
   if (config.TRUST_PROXY) app.set('trust proxy', config.TRUST_PROXY);
   app.use(serverTiming);
 
-  app.use(
-    helmet({
-      contentSecurityPolicy: {
-        directives: {
-          // react-native-web writes inline styles; fonts and images come from our origin
-          'style-src': ["'self'", "'unsafe-inline'"],
-          'img-src': ["'self'", 'data:', 'blob:'],
-          'font-src': ["'self'", 'data:'],
-          'upgrade-insecure-requests': config.HTTPS ? [] : null,
-        },
-      },
-    }),
-  );
+  app.use('/api', apiSecurityHeaders(config.HTTPS));
 
   const { middleware: sessionMw, store } = createSessionMiddleware({
     db, secret: opts.sessionSecret, secureCookies: config.HTTPS, cleanupIntervalMs: opts.sessionCleanupMs ?? 0,
@@ -70,10 +59,6 @@ export function createApp(opts: CreateAppOptions): { app: Express; close: () => 
   }
   api.use(express.json({ limit: `${config.BODY_LIMIT_KB}kb`, strict: true, type: ['application/json', 'application/*+json'] }));
   api.use(sessionMw, passport.session());
-  api.use((req, res, next) => {
-    res.setHeader('Cache-Control', 'no-store');
-    next();
-  });
   api.use('/auth', authRoutes(ctx));
   // every other state-changing request made with the cookie must carry the CSRF token
   api.use(csrf.csrfSynchronisedProtection);
@@ -95,6 +80,22 @@ export function createApp(opts: CreateAppOptions): { app: Express; close: () => 
   api.use(errorHandler(log));
   app.use('/api/v1', api);
   app.use('/api', notFoundApi, errorHandler(log));
+
+  // the web app's pages and files
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          // react-native-web writes inline styles; fonts and images come from our origin
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'font-src': ["'self'", 'data:'],
+          'upgrade-insecure-requests': config.HTTPS ? [] : null,
+        },
+      },
+      strictTransportSecurity: config.HTTPS,
+    }),
+  );
 
   if (opts.webDir && fs.existsSync(path.join(opts.webDir, 'index.html'))) {
     const webDir = opts.webDir;

@@ -3,28 +3,21 @@
  * Bode plot, the pole–zero map and the drift table computed by the real compute API, save,
  * reopen (also after a reload), save a change as version 2, open version 1 read-only.
  */
-import { screenshot, useAppInBrowser, VIEWPORTS } from '../helpers/browser';
+import { AT_BOTH_WIDTHS, screenshot, useAppInBrowser } from '../helpers/browser';
 
 jest.setTimeout(180_000);
 
 const t = useAppInBrowser();
-const signIn = (page: Parameters<typeof t.signIn>[0], email: string) => t.signIn(page, email);
-const expectText = t.expectText;
+const { expectText } = t;
 
-describe.each([
-  ['phone', VIEWPORTS.phone],
-  ['wide', VIEWPORTS.wide],
-] as const)('design editor at %s width', (label, viewport) => {
+describe.each(AT_BOTH_WIDTHS)('design editor at %s width', (label, viewport) => {
   it('enters a lead, shows plots and drift, saves, reopens and versions it', async () => {
     const { page, errors } = await t.browser.newPage(viewport);
     const computeAnswers: number[] = [];
     page.on('response', (r) => {
       if (r.url().endsWith('/api/v1/discretize')) computeAnswers.push(r.status());
     });
-    await signIn(page, 'engineer@example.com');
-    await page.goto(`${t.server.baseUrl}/designs`);
-    await page.getByTestId('design-new').click();
-    await page.getByTestId('lead-gain').waitFor();
+    await t.openNewDesign(page, 'engineer@example.com');
     await page.getByTestId('lead-gain').fill('18');
     await page.getByTestId('lead-zero').fill('4');
     await page.getByTestId('lead-pole').fill('30');

@@ -3,24 +3,17 @@
  * engineer enters a plant, places the closed-loop poles for a target ζ, ωn, uses the lead and
  * sees the drift table; then enters an op-amp network and sees H(s) echoed by the compute API.
  */
-import { screenshot, useAppInBrowser, VIEWPORTS } from '../helpers/browser';
+import { AT_BOTH_WIDTHS, screenshot, useAppInBrowser } from '../helpers/browser';
 
 jest.setTimeout(180_000);
 
 const t = useAppInBrowser();
-const signIn = (page: Parameters<typeof t.signIn>[0], email: string) => t.signIn(page, email);
-const expectText = t.expectText;
+const { expectText } = t;
 
-describe.each([
-  ['phone', VIEWPORTS.phone],
-  ['wide', VIEWPORTS.wide],
-] as const)('pole placement and op-amp entry at %s width', (label, viewport) => {
+describe.each(AT_BOTH_WIDTHS)('pole placement and op-amp entry at %s width', (label, viewport) => {
   it('places a lead for ζ, ωn, uses it, and enters an op-amp network', async () => {
     const { page, errors } = await t.browser.newPage(viewport);
-    await signIn(page, 'engineer@example.com');
-    await page.goto(`${t.server.baseUrl}/designs`);
-    await page.getByTestId('design-new').click();
-    await page.getByTestId('lead-gain').waitFor();
+    await t.openNewDesign(page, 'engineer@example.com');
 
     // the panel asks for the plant, then uses the editor's plant: G(s) = 6/(s(s + 3))
     await page.getByTestId('place-add-plant').click();

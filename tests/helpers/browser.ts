@@ -21,6 +21,8 @@ export const VIEWPORTS = {
   phone: { width: 390, height: 844 },
   wide: { width: 1440, height: 900 },
 } as const;
+/** For `describe.each`: every test at both widths, labelled. */
+export const AT_BOTH_WIDTHS = [['phone', VIEWPORTS.phone], ['wide', VIEWPORTS.wide]] as const;
 
 export const SCREENSHOT_DIR = path.resolve(__dirname, '..', '..', '.test-data', 'screenshots');
 
@@ -77,6 +79,8 @@ export function useAppInBrowser(): {
   signIn(page: Page, email: string, password?: string): Promise<void>;
   /** waits until the element's text matches (up to 10 s) */
   expectText(page: Page, testId: string, re: RegExp): Promise<void>;
+  /** signs in and opens the editor on a new design (the lead form showing) */
+  openNewDesign(page: Page, email: string): Promise<void>;
 } {
   let server: Awaited<ReturnType<typeof import('./test-server').startTestServer>> | undefined;
   let browser: TestBrowser | undefined;
@@ -116,6 +120,12 @@ export function useAppInBrowser(): {
         await page.waitForTimeout(100);
       }
       throw new Error(`${testId} never matched ${re}: "${last}"`);
+    },
+    async openNewDesign(page, email) {
+      await this.signIn(page, email);
+      await page.goto(`${server!.baseUrl}/designs`);
+      await page.getByTestId('design-new').click();
+      await page.getByTestId('lead-gain').waitFor();
     },
   };
 }

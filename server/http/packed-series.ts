@@ -1,5 +1,5 @@
 import { PACKED_ENCODING, type PackedSeries } from '../../schemas/series';
-import type { DiscretizeResponse, DiscretizeResponseWire, MethodName } from '../../schemas/discretize';
+import type { DiscretizeResponse, MethodName } from '../../schemas/discretize';
 
 /**
  * Writing the long series of a compute answer packed (schemas/series.ts): the doubles as
@@ -9,10 +9,6 @@ import type { DiscretizeResponse, DiscretizeResponseWire, MethodName } from '../
 const LITTLE_ENDIAN = new Uint8Array(new Float64Array([1]).buffer)[7] === 0x3f;
 
 export function packSeries(values: ArrayLike<number>): PackedSeries {
-  return { encoding: PACKED_ENCODING, count: values.length, data: base64Doubles(values) };
-}
-
-function base64Doubles(values: ArrayLike<number>): string {
   const n = values.length;
   const f = new Float64Array(n);
   if (LITTLE_ENDIAN) {
@@ -21,7 +17,7 @@ function base64Doubles(values: ArrayLike<number>): string {
     const view = new DataView(f.buffer);
     for (let i = 0; i < n; i++) view.setFloat64(8 * i, values[i], true);
   }
-  return Buffer.from(f.buffer, f.byteOffset, f.byteLength).toString('base64');
+  return { encoding: PACKED_ENCODING, count: n, data: Buffer.from(f.buffer, f.byteOffset, f.byteLength).toString('base64') };
 }
 
 /**
@@ -45,23 +41,18 @@ function mapSeries<S>(res: DiscretizeResponse, leaf: (v: number[]) => S) {
   };
 }
 
-/** The same answer with every series packed. */
-export function packAnswer(res: DiscretizeResponse): DiscretizeResponseWire {
-  return mapSeries(res, packSeries) as DiscretizeResponseWire;
-}
-
 /**
- * The UTF-8 JSON body of packAnswer(res), written faster: the answer is serialised with a
- * short marker in place of each series, and the body is then assembled in one buffer from
+ * The UTF-8 JSON body of the answer with every series packed. The answer is serialised with
+ * a short marker in place of each series, and the body is then assembled in one buffer from
  * the pieces between the markers and each series' JSON text, so neither JSON.stringify nor
  * the UTF-8 encoder ever scans the ~100 KB of base64 (which needs no escaping and is ASCII).
- * The bytes are those of JSON.stringify(packAnswer(res)), byte for byte.
  */
 export function packedAnswerBody(res: DiscretizeResponse): Buffer {
   const texts: string[] = [];
   const skeleton = JSON.stringify(
     mapSeries(res, (v) => {
-      texts.push(`{"encoding":"${PACKED_ENCODING}","count":${v.length},"data":"${base64Doubles(v)}"}`);
+      const p = packSeries(v);
+      texts.push(`{"encoding":"${p.encoding}","count":${p.count},"data":"${p.data}"}`);
       // U+0002 never occurs in an answer; JSON.stringify writes it as the escape \u0002
       return `\u0002${texts.length - 1}`;
     }),

@@ -65,15 +65,9 @@ export class SessionStore extends ConnectSessionKnexStore {
       this.recent.delete(sid);
       return;
     }
-    if (this.recent.size >= MAX_CACHED_SESSIONS) {
-      // drop the oldest reads (a Map iterates in insertion order)
-      let drop = this.recent.size - MAX_CACHED_SESSIONS + 1;
-      for (const key of this.recent.keys()) {
-        if (drop-- <= 0) break;
-        this.recent.delete(key);
-      }
-    }
     this.recent.delete(sid);
+    // full: drop the oldest read (a Map iterates in insertion order)
+    if (this.recent.size >= MAX_CACHED_SESSIONS) this.recent.delete(this.recent.keys().next().value!);
     this.recent.set(sid, { json: JSON.stringify(sess), userId: sessionUserId(sess), readAt: Date.now() });
   }
 

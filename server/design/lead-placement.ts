@@ -23,8 +23,10 @@ import { DspInputError } from '../dsp/errors';
  * 0, s_d, −x (angle β = arccos ζ = 180° − θ at the origin, ψ at −x): x = ωn·sin(θ − ψ)/sin ψ.
  */
 
-/** A refusal naming the request fields it is about ("zeta", "wn", "zero", "plant"); the route answers 400. */
-/** Bad input the request schema cannot see; answered as 400 like every compute input error. */
+/**
+ * A refusal naming the request fields it is about ("zeta", "wn", "zero", "plant"): bad input
+ * the request schema cannot see, answered 400 like every compute input error.
+ */
 export class PlacementInputError extends DspInputError {
   constructor(message: string, issues: { path: string; message: string }[]) {
     super(message, issues);

@@ -115,13 +115,10 @@ async function main() {
       const c = summary(compute);
       const rt = summary(roundTrip);
       rows.push([`discretize, ${label}: server time per request, one client (arrival to headers)`, w.median.toFixed(3), w.p95.toFixed(3), `ms, n=${w.n}, target median ≤ 2`]);
-      const busy = summary(await pipelinedServerTimes({
-        port, path: '/api/v1/discretize', headers: { 'Content-Type': 'application/json', Cookie: headers.cookie, 'X-CSRF-Token': csrfToken }, body,
-        requests: 200 + REQUESTS, warmUp: 200,
-      }));
-      rows.push(['  server time per request, next request always queued (pipelined)', busy.median.toFixed(3), busy.p95.toFixed(3), `ms, n=${busy.n}`]);
       rows.push(['  of which computation', c.median.toFixed(3), c.p95.toFixed(3), `ms, n=${c.n}`]);
       rows.push(['  loopback round trip, one client', rt.median.toFixed(3), rt.p95.toFixed(3), `ms, answer ${(bytes / 1024).toFixed(0)} KiB`]);
+      const busy = summary(await pipelinedServerTimes({ port, path: '/api/v1/discretize', headers, body, requests: 200 + REQUESTS, warmUp: 200 }));
+      rows.push(['  server time per request, next request always queued (pipelined)', busy.median.toFixed(3), busy.p95.toFixed(3), `ms, n=${busy.n}`]);
       if (!LOAD) continue;
       const load = await autocannon({
         url: `${base}/api/v1/discretize`, method: 'POST', headers, body, connections: 8, duration: 8,

@@ -4,7 +4,7 @@ import { z } from 'zod';
  * Long series of numbers in an answer (frequency grids, Bode curves, step responses) travel
  * either as JSON arrays of numbers (`"numbers"`, the default) or packed (`"packed"`): the
  * IEEE 754 binary64 values, little-endian, back to back, in base64. Packing keeps every bit
- * of every value (it is not a rounding), makes the answer about 40 % smaller and costs the
+ * of every value (it is not a rounding), makes the answer about 30 % smaller and costs the
  * server almost nothing to write, where printing thousands of doubles as decimal text is the
  * largest single cost of a compute answer. Our web client asks for packed series.
  *

@@ -816,12 +816,6 @@ export function pickMargins(c: Crossings): Margins {
   };
 }
 
-/** ln|L| and ∠L of a zpk loop at x, in product form (one atan2 per product). */
-export function lnMagPhase(e: Evaluator, xr: number, xi: number): { lnMag: number; ph: number } {
-  lnMagPhaseInto(e, xr, xi, WANT_BOTH);
-  return { lnMag: lmLn, ph: lmPh };
-}
-
 const WANT_MAG = 1;
 const WANT_PHASE = 2;
 const WANT_BOTH = 3;
@@ -864,7 +858,7 @@ function loopProductsInto(e: Evaluator, xr: number, xi: number, out: Float64Arra
 // loopProductsInto's output for a single point (lnMagPhaseInto, closedLoopBelow).
 const prod = new Float64Array(4);
 
-/** lnMagPhase into lmLn / lmPh; only the parts in `want` (the other is left 0). */
+/** ln|L| and ∠L of a zpk loop at x (one atan2 per product) into lmLn / lmPh; only the parts in `want` (the other is left 0). */
 function lnMagPhaseInto(e: Evaluator, xr: number, xi: number, want: number): void {
   loopProductsInto(e, xr, xi, prod, 0);
   const vr = prod[0];
@@ -887,7 +881,7 @@ function lnMagPhaseInto(e: Evaluator, xr: number, xi: number, want: number): voi
  * |T(jω)| of the continuous closed loop T = L/(1 + L) from the loop's ln|L| and ∠L at jω
  * (ω in rad/s).
  */
-export function closedLoopMagnitudeAt(e: Evaluator, w: number): number {
+function closedLoopMagnitudeAt(e: Evaluator, w: number): number {
   lnMagPhaseInto(e, 0, w, WANT_BOTH);
   const m = Math.exp(lmLn);
   const ph = lmPh;
@@ -902,7 +896,7 @@ export function closedLoopMagnitudeAt(e: Evaluator, w: number): number {
  * nothing under- or overflows) cannot change a comparison more than 1e-9 from the limit.
  * Elsewhere the value itself is computed and compared.
  */
-export function closedLoopBelow(e: Evaluator, w: number, limit: number): boolean {
+function closedLoopBelow(e: Evaluator, w: number, limit: number): boolean {
   loopProductsInto(e, 0, w, prod, 0);
   const vr = prod[0];
   const vi = prod[1];

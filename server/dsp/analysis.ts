@@ -946,11 +946,6 @@ export function closedLoopPoles(numDesc: number[], denDesc: number[], delay = 0)
   return { poles: polyRoots(ch), lead: ch[0] };
 }
 
-/** Response metrics of a step (DESIGN.md / issue 3: overshoot, 10–90 % rise, 2 % settling). */
-export function stepMetrics(t: number[], y: number[], finalValue: number | null): StepResponse {
-  return { timeSec: t, output: y, finalValue, ...stepFigures(y, y.length, t, 0, finalValue) };
-}
-
 /**
  * A step sampled every h seconds (t_k = k·h): figures from the first n samples of y,
  * arrays of the first `shown` samples thinned to ≤ maxPoints (every stride-th and the last).
@@ -974,24 +969,24 @@ export function uniformStep(y: ArrayLike<number>, n: number, h: number, finalVal
       output[regular] = y[shown - 1];
     }
   }
-  const fig = stepFigures(y, n, null, h, finalValue);
+  const fig = stepFigures(y, n, h, finalValue);
   return { timeSec, output, finalValue, overshootPercent: fig.overshootPercent, riseTimeSec: fig.riseTimeSec, settlingTimeSec: fig.settlingTimeSec };
 }
 
 /**
- * Overshoot (%), 10–90 % rise time and 2 % settling time (s) of the first n samples of a
- * step; sample k at time t[k], or at k·h when t is null. Null figures without a finite,
- * non-zero final value.
+ * Response metrics of a step (DESIGN.md / issue 3): overshoot (%), 10–90 % rise time and
+ * 2 % settling time (s) of the first n samples, sample k at time k·h. Null figures without
+ * a finite, non-zero final value.
  */
-function stepFigures(y: ArrayLike<number>, n: number, t: ArrayLike<number> | null, h: number, finalValue: number | null): Pick<StepResponse, 'overshootPercent' | 'riseTimeSec' | 'settlingTimeSec'> {
+function stepFigures(y: ArrayLike<number>, n: number, h: number, finalValue: number | null): Pick<StepResponse, 'overshootPercent' | 'riseTimeSec' | 'settlingTimeSec'> {
   if (finalValue === null || finalValue === 0 || !Number.isFinite(finalValue)) return { overshootPercent: null, riseTimeSec: null, settlingTimeSec: null };
   const f = finalValue;
   const sgn = Math.sign(f);
   let peak = -Infinity;
   for (let k = 0; k < n; k++) peak = Math.max(peak, sgn * y[k]);
   const overshootPercent = Math.max(0, ((peak - Math.abs(f)) / Math.abs(f)) * 100);
-  const t10 = levelCrossing(y, n, t, h, sgn, 0.1 * Math.abs(f));
-  const t90 = levelCrossing(y, n, t, h, sgn, 0.9 * Math.abs(f));
+  const t10 = levelCrossing(y, n, h, sgn, 0.1 * Math.abs(f));
+  const t90 = levelCrossing(y, n, h, sgn, 0.9 * Math.abs(f));
   const band = 0.02 * Math.abs(f);
   // the last sample outside the 2 % band (−1: none)
   let lastOut = n - 1;
@@ -999,19 +994,19 @@ function stepFigures(y: ArrayLike<number>, n: number, t: ArrayLike<number> | nul
   return {
     overshootPercent,
     riseTimeSec: t10 !== null && t90 !== null ? t90 - t10 : null,
-    settlingTimeSec: lastOut === n - 1 ? null : lastOut < 0 ? (t ? t[0] : 0 * h) : t ? t[lastOut + 1] : (lastOut + 1) * h,
+    settlingTimeSec: lastOut === n - 1 ? null : (lastOut + 1) * h,
   };
 }
 
-/** First time sgn·y reaches `level`, linearly interpolated between samples; null when it never does. */
-function levelCrossing(y: ArrayLike<number>, n: number, t: ArrayLike<number> | null, h: number, sgn: number, level: number): number | null {
+/** First time sgn·y reaches `level` (sample k at k·h), linearly interpolated between samples; null when it never does. */
+function levelCrossing(y: ArrayLike<number>, n: number, h: number, sgn: number, level: number): number | null {
   for (let k = 0; k < n; k++) {
     if (sgn * y[k] >= level) {
-      if (k === 0) return t ? t[0] : 0 * h;
+      if (k === 0) return 0;
       const y0 = sgn * y[k - 1];
       const y1 = sgn * y[k];
-      const tk1 = t ? t[k - 1] : (k - 1) * h;
-      const tk = t ? t[k] : k * h;
+      const tk1 = (k - 1) * h;
+      const tk = k * h;
       return tk1 + ((level - y0) / (y1 - y0)) * (tk - tk1);
     }
   }

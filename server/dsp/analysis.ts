@@ -191,22 +191,19 @@ let outDeg = 0;
 
 function evalInto(e: Evaluator, xr: number, xi: number): void {
   let mag2 = e.k * e.k;
-  let ph = e.k < 0 ? Math.PI : 0;
   const { zr, zi, pr, pi } = e;
   for (let i = 0; i < zr.length; i++) {
     const dr = xr - zr[i];
     const di = xi - zi[i];
     mag2 *= dr * dr + di * di;
-    ph += Math.atan2(di, dr);
   }
   for (let i = 0; i < pr.length; i++) {
     const dr = xr - pr[i];
     const di = xi - pi[i];
     mag2 /= dr * dr + di * di;
-    ph -= Math.atan2(di, dr);
   }
   outDb = dbOf(e, mag2, xr, xi);
-  outDeg = ph * DEG;
+  outDeg = phaseSum(e, xr, xi) * DEG;
 }
 
 /** 20·log10|H(x)| as a sum of logs (no overflow); the slow path of responseAt. */
@@ -493,15 +490,13 @@ function gridTurns(e: Evaluator, xr: ArrayLike<number> | null, xi: ArrayLike<num
       turns = accTurns;
       turns.fill(0, 0, n);
     }
-    const step = (rule === 1 ? 1 : -1) * (isZero ? 1 : -1);
-    for (let i = 0; i < n; i++) {
-      if ((xr ? xr[i] : 0) < a && (rule === 1 ? xi[i] < b : xi[i] >= b)) turns[i] += step;
-    }
+    const sign = isZero ? 1 : -1;
+    for (let i = 0; i < n; i++) turns[i] += sign * turnOf(rule, a, b, xr ? xr[i] : 0, xi[i]);
   }
   return turns;
 }
 
-/** ∠H(x) (rad) as the sum of the root angles, as evalInto forms it. */
+/** ∠H(x) (rad) as the sum of the principal root angles (the phase of evalInto and responseAt). */
 function phaseSum(e: Evaluator, xr: number, xi: number): number {
   let ph = e.k < 0 ? Math.PI : 0;
   for (let i = 0; i < e.zr.length; i++) ph += Math.atan2(xi - e.zi[i], xr - e.zr[i]);

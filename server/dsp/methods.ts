@@ -73,36 +73,32 @@ export function backwardEulerZpk(cont: Zpk, periodSec: number): Zpk {
 const atOrigin = (r: Complex) => r.re === 0 && r.im === 0;
 
 /**
- * H_d(1) of a bilinear model (s = c·(z − 1)/(z + 1)) with gain kd: kd·2^(np − nz)·Π(1 − zᵢ)/Π(1 − pᵢ)
- * with 1 − z = −2r/(c − r) for z = (c + r)/(c − r), exactly (a zero at infinity, z = −1, gives
- * 1 − z = 2). The zpk product subtracts the rounded z from 1 and keeps only ~|r/c|/ε of its
- * digits (2e-6 relative for a root at −0.001 rad/s at 10 MHz). Null with a pole at s = 0
- * (z = 1 exactly), 0 with a zero there.
+ * H_d(1) = kd·Π(1 − zᵢ)/Π(1 − pᵢ) of a model with gain kd whose map sends each continuous
+ * root r to a z with 1 − z = oneLess(r), written in a form exact for the map, and each zero
+ * at infinity to a z with 1 − z = oneLessAtInfinity. The zpk product subtracts the rounded
+ * z from 1 instead and keeps only ~|1 − z|/ε of its digits (2e-6 relative for a root at
+ * −0.001 rad/s at 10 MHz by Tustin). Null with a pole at s = 0 (z = 1 exactly), 0 with a
+ * zero there.
  */
-function bilinearDcGain(cont: Zpk, c: number, kd: number): number | null {
+function dcGainOfMap(cont: Zpk, kd: number, oneLessAtInfinity: number, oneLess: (r: Complex) => Complex): number | null {
   if (cont.poles.some(atOrigin)) return null;
   if (cont.zeros.some(atOrigin)) return 0;
-  const cc = cx(c);
-  let g = cx(kd * Math.pow(2, cont.poles.length - cont.zeros.length));
-  for (const z of cont.zeros) g = mul(g, div(scale(z, -2), sub(cc, z)));
-  for (const p of cont.poles) g = div(g, div(scale(p, -2), sub(cc, p)));
+  let g = cx(kd * Math.pow(oneLessAtInfinity, cont.poles.length - cont.zeros.length));
+  for (const z of cont.zeros) g = mul(g, oneLess(z));
+  for (const p of cont.poles) g = div(g, oneLess(p));
   return Number.isFinite(g.re) ? g.re : null;
 }
 
-/**
- * H_d(1) of a backward-Euler model (s = (z − 1)/(T z)) with gain kd: kd·Π(1 − zᵢ)/Π(1 − pᵢ) with
- * 1 − z = −rT/(1 − rT) for z = 1/(1 − rT), exactly (a zero at infinity, z = 0, gives 1 − z = 1;
- * the zpk product loses digits to 1 − z as bilinearDcGain says). Null with a pole at s = 0
- * (z = 1 exactly), 0 with a zero there.
- */
+/** H_d(1) of a bilinear model (s = c·(z − 1)/(z + 1)): z = (c + r)/(c − r) has 1 − z = −2r/(c − r); a zero at infinity, z = −1, 1 − z = 2. */
+function bilinearDcGain(cont: Zpk, c: number, kd: number): number | null {
+  const cc = cx(c);
+  return dcGainOfMap(cont, kd, 2, (r) => div(scale(r, -2), sub(cc, r)));
+}
+
+/** H_d(1) of a backward-Euler model (s = (z − 1)/(T z)): z = 1/(1 − rT) has 1 − z = −rT/(1 − rT); a zero at infinity, z = 0, 1 − z = 1. */
 function backwardEulerDcGain(cont: Zpk, T: number, kd: number): number | null {
-  if (cont.poles.some(atOrigin)) return null;
-  if (cont.zeros.some(atOrigin)) return 0;
   const one = cx(1);
-  let g = cx(kd);
-  for (const z of cont.zeros) g = mul(g, div(scale(z, -T), sub(one, scale(z, T))));
-  for (const p of cont.poles) g = div(g, div(scale(p, -T), sub(one, scale(p, T))));
-  return Number.isFinite(g.re) ? g.re : null;
+  return dcGainOfMap(cont, kd, 1, (r) => div(scale(r, -T), sub(one, scale(r, T))));
 }
 
 /**
@@ -158,18 +154,11 @@ function matchedUnitMagnitude(cont: Zpk, T: number, w0: number): number {
 }
 
 /**
- * H_d(1) of a matched model with gain kd: kd·2^(np − nz)·Π(1 − e^{zᵢT})/Π(1 − e^{pᵢT}), each
- * 1 − e^{rT} as −expm1(rT) (the zpk product 1 − zᵢ subtracts a rounded e^{rT} from 1 and
- * keeps only ~|rT|/ε of its digits: 1e-7 relative for a root at −0.1 rad/s at 10 MHz).
- * Null with a pole at s = 0 (z = 1), 0 with a zero there.
+ * H_d(1) of a matched model: z = e^{rT} has 1 − z = −expm1(rT) (1e-7 relative lost by
+ * subtraction for a root at −0.1 rad/s at 10 MHz); a zero at infinity, z = −1, 1 − z = 2.
  */
 function matchedDcGain(cont: Zpk, T: number, kd: number): number | null {
-  if (cont.poles.some(atOrigin)) return null;
-  if (cont.zeros.some(atOrigin)) return 0;
-  let g = cx(kd * Math.pow(2, cont.poles.length - cont.zeros.length));
-  for (const z of cont.zeros) g = mul(g, scale(expm1(scale(z, T)), -1));
-  for (const p of cont.poles) g = div(g, scale(expm1(scale(p, T)), -1));
-  return Number.isFinite(g.re) ? g.re : null;
+  return dcGainOfMap(cont, kd, 2, (r) => scale(expm1(scale(r, T)), -1));
 }
 
 /**

@@ -25,10 +25,10 @@ export interface DiscreteResult {
   tf: DiscreteTf;
   /**
    * H(z = 1) from the structure without the zpk product's 1 − zᵢ, which cancels for roots
-   * near z = 1 (every method sets it: ZOH H(0) by step invariance; the others K_d times
-   * each root's 1 − z in a form exact for its map); null when infinite. Absent: use the zpk.
+   * near z = 1 (ZOH: H(0) by step invariance; the others K_d times each root's 1 − z in a
+   * form exact for its map); null when infinite.
    */
-  dcGain?: number | null;
+  dcGain: number | null;
 }
 
 /**
@@ -174,8 +174,9 @@ export function zohDiscretize(cont: Zpk, periodSec: number): DiscreteResult {
   const n = cont.poles.length;
   const poles = cont.poles.map((r) => exp(scale(r, T)));
   const den = polyFromRoots(poles);
+  const dcGain = zohDcGain(cont);
   if (n === 0) {
-    return { zpk: { zeros: [], poles: [], gain: cont.gain }, tf: { num: [cont.gain], den: [1] } };
+    return { zpk: { zeros: [], poles: [], gain: cont.gain }, tf: { num: [cont.gain], den: [1] }, dcGain };
   }
   const ss = zpkToSs(cont);
   const { phi, gamma, phiMinusI } = zohSs(ss, T);
@@ -219,10 +220,10 @@ export function zohDiscretize(cont: Zpk, periodSec: number): DiscreteResult {
   const num = asc.reverse();
   const trimmed = trimLeading(num);
   const zeros = zohZeros(ss, phi, gamma, phiMinusI) ?? (trimmed.length > 1 ? polyRoots(trimmed) : []);
-  refineSmallestZero(zeros, cont, T, trimmed[0]);
+  refineSmallestZero(zeros, dcGain, cont.poles, T, trimmed[0]);
   // s = 0 → z = 1 exactly: a continuous zero at the origin stays a discrete zero at 1
   // (step invariance: H_d(1) = H(0) = 0).
-  const originZeros = cont.zeros.filter((z) => z.re === 0 && z.im === 0).length;
+  const originZeros = cont.zeros.filter(atOrigin).length;
   for (let k = 0; k < originZeros; k++) {
     let best = -1;
     zeros.forEach((z, i) => {
@@ -230,7 +231,7 @@ export function zohDiscretize(cont: Zpk, periodSec: number): DiscreteResult {
     });
     if (best >= 0) zeros[best] = cx(1);
   }
-  return { zpk: { zeros, poles, gain: trimmed[0] }, tf: { num, den }, dcGain: zohDcGain(cont) };
+  return { zpk: { zeros, poles, gain: trimmed[0] }, tf: { num, den }, dcGain };
 }
 
 /**
@@ -241,8 +242,8 @@ export function zohDiscretize(cont: Zpk, periodSec: number): DiscreteResult {
  * Null with a pole at s = 0 (z = 1), 0 with a zero there.
  */
 function zohDcGain(cont: Zpk): number | null {
-  if (cont.poles.some((p) => p.re === 0 && p.im === 0)) return null;
-  if (cont.zeros.some((z) => z.re === 0 && z.im === 0)) return 0;
+  if (cont.poles.some(atOrigin)) return null;
+  if (cont.zeros.some(atOrigin)) return 0;
   const v = evalZpk(cont, cx(0)).re;
   return Number.isFinite(v) ? v : null;
 }
@@ -312,11 +313,11 @@ function zohZeros(ss: StateSpace, phi: number[], gamma: number[], phiMinusI: num
  * An eigenvalue far below the norm of its matrix carries an absolute error (ε·‖Φ − I‖), which
  * can be most of a w ~ 1e-13 (slow zeros with a direct feedthrough); the quotient of the
  * constraint by the other, larger zeros has their relative accuracy. (The same step as taking
- * the small root of a quadratic as c/(a·x_large).) Left alone with a root at s = 0.
+ * the small root of a quadratic as c/(a·x_large).) `dc`: H(0) as zohDcGain gives it (left alone
+ * where it is 0 or infinite: a root at s = 0); `contPoles`: the continuous poles pⱼ; `lead`: K.
  */
-function refineSmallestZero(zeros: Complex[], cont: Zpk, T: number, lead: number): void {
-  if (zeros.length === 0 || !(lead !== 0) || !Number.isFinite(lead)) return;
-  if (cont.poles.some((p) => p.re === 0 && p.im === 0) || cont.zeros.some((z) => z.re === 0 && z.im === 0)) return;
+function refineSmallestZero(zeros: Complex[], dc: number | null, contPoles: Complex[], T: number, lead: number): void {
+  if (zeros.length === 0 || dc === null || dc === 0 || !(lead !== 0) || !Number.isFinite(lead)) return;
   const w = zeros.map((z) => cx(z.re - 1, z.im));
   let k = 0;
   w.forEach((v, i) => {
@@ -326,8 +327,8 @@ function refineSmallestZero(zeros: Complex[], cont: Zpk, T: number, lead: number
   const next = Math.min(...w.filter((_, i) => i !== k).map(abs));
   if (!(abs(w[k]) <= 1e-2 * next)) return;
   // P = H(0)·Π(−eⱼ)/K / Π_{i≠k}(−wᵢ), accumulated as a complex product (pairs give a real result)
-  let acc = cx(evalZpk(cont, cx(0)).re / lead);
-  for (const p of cont.poles) acc = mul(acc, scale(expm1(scale(p, T)), -1));
+  let acc = cx(dc / lead);
+  for (const p of contPoles) acc = mul(acc, scale(expm1(scale(p, T)), -1));
   for (let i = 0; i < w.length; i++) if (i !== k) acc = div(acc, scale(w[i], -1));
   const wk = -acc.re;
   if (!Number.isFinite(wk) || !(Math.abs(wk - w[k].re) <= 0.5 * Math.abs(w[k].re))) return;

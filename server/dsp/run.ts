@@ -327,7 +327,7 @@ function run(req: DiscretizeRequest): DiscretizeResponse {
       poles: d.zpk.poles,
       zeroInfo: d.zpk.zeros.map((z, i) => rootInfo(z, zToS(z, T), zeroOrigin[i])),
       poleInfo: d.zpk.poles.map((p, i) => rootInfo(p, zToS(p, T), poleOrigin[i])),
-      dcGain: d.dcGain !== undefined ? d.dcGain : discreteDcGain(d.zpk),
+      dcGain: d.dcGain,
       stable: stab.stable,
       marginal: stab.marginal,
       prewarpRadPerSec: usesW0 ? w0 : null,

@@ -53,13 +53,12 @@ function lincombInto(out: Float64Array, n: number, eyeCoef: number, c1: number, 
   for (let i = 0; i < n; i++) out[i * n + i] += eyeCoef;
 }
 
-/** out = c1·M1 + c2·M2 (+ 0·I), summed from 0 in that order. */
+/** out = c1·M1 + c2·M2, summed from 0 in that order. */
 function lincomb2Into(out: Float64Array, n: number, c1: number, m1: Float64Array, c2: number, m2: Float64Array): void {
   const nn = n * n;
   for (let k = 0; k < nn; k++) out[k] = 0;
   for (let k = 0; k < nn; k++) out[k] += c1 * m1[k];
   for (let k = 0; k < nn; k++) out[k] += c2 * m2[k];
-  for (let i = 0; i < n; i++) out[i * n + i] += 0;
 }
 
 /**

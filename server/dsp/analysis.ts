@@ -220,12 +220,12 @@ export interface Response {
 }
 
 /**
- * Response of a continuous zpk at x = jω for ω in `omegas` (rad/s). `periodSec`, when
+ * Response of a continuous zpk (or its evaluator) at x = jω for ω in `omegas` (rad/s). `periodSec`, when
  * given, sets the scale below which a root counts as on the jω axis (ON_CONTOUR·max(|r|, 1/T),
  * the rounding scale of the discrete models' roots at that rate; see branchRule).
  */
-export function continuousResponse(hIn: Zpk, omegas: number[], periodSec?: number): Response {
-  return gridResponse(evaluator(hIn), null, omegas, periodSec ? 1 / periodSec : 0);
+export function continuousResponse(hIn: Zpk | Evaluator, omegas: number[], periodSec?: number): Response {
+  return gridResponse('k' in hIn ? hIn : evaluator(hIn), null, omegas, periodSec ? 1 / periodSec : 0);
 }
 
 // Per-point accumulators of gridResponse (module scratch, grown as needed).

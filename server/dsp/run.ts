@@ -231,7 +231,7 @@ function run(req: DiscretizeRequest): DiscretizeResponse {
   const omegas = frequencyHz.map((f) => 2 * Math.PI * f);
   const bandHz = req.bandHz ?? nyqHz / 4;
   const contEval = evaluator(comp.zpk);
-  const contResp = continuousResponse(comp.zpk, omegas, T);
+  const contResp = continuousResponse(contEval, omegas, T);
   // e^{jωT} on the grid, shared by every method's response
   const circle = unitCircleGrid(omegas, T);
   // the continuous compensator at the band edge, shared by every method's band errors; its

@@ -185,7 +185,9 @@ export function responseAt(h: Zpk | Evaluator, x: Complex): { db: number; deg: n
   return { db: outDb, deg: outDeg };
 }
 
-// Results of evalInto (module scratch, so the grid loops allocate nothing per point).
+// Results of evalInto (module scratch: no object per call). It serves responseAt and the
+// loop evaluations' fallback to the log-sum form (findCrossings, lnMagPhaseInto); the
+// response grids use gridResponse.
 let outDb = 0;
 let outDeg = 0;
 
@@ -206,7 +208,7 @@ function evalInto(e: Evaluator, xr: number, xi: number): void {
   outDeg = phaseSum(e, xr, xi) * DEG;
 }
 
-/** 20·log10|H(x)| as a sum of logs (no overflow); the slow path of responseAt. */
+/** 20·log10|H(x)| as a sum of logs (no overflow); the slow path of dbOf. */
 function logSumDb(e: Evaluator, x: Complex): number {
   let l = Math.log(Math.abs(e.k));
   for (let i = 0; i < e.zr.length; i++) l += Math.log(hypot(x.re - e.zr[i], x.im - e.zi[i]));
@@ -814,7 +816,8 @@ export function pickMargins(c: Crossings): Margins {
 const WANT_MAG = 1;
 const WANT_PHASE = 2;
 const WANT_BOTH = 3;
-// Results of lnMagPhaseInto (module scratch: the grid loops allocate nothing per point).
+// Results of lnMagPhaseInto (module scratch: the crossover refinement and the bandwidth
+// scan allocate nothing per call).
 let lmLn = 0;
 let lmPh = 0;
 

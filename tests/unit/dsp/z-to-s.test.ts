@@ -115,6 +115,9 @@ describe('sampled loops with a closed-loop pole near z = 0', () => {
     const tiny = res.methods.tustin!.loop!.closedLoopPoles.filter((p) => p.z !== null && Math.hypot(p.z.re, p.z.im) < 1e-10);
     expect(tiny.length).toBeGreaterThan(0);
     // a positive or negative real z ≠ 0: Re s = ln|z|/T (principal logarithm), finite
-    for (const p of tiny) if (p.s) expect(p.s.re).toBeCloseTo(Math.log(Math.hypot(p.z!.re, p.z!.im)) * 50, 6);
+    for (const p of tiny) {
+      expect(p.s).not.toBeNull(); // z ≠ 0: zToS is null only at z = 0
+      expect(p.s!.re).toBeCloseTo(Math.log(Math.hypot(p.z!.re, p.z!.im)) * 50, 6);
+    }
   });
 });

@@ -754,17 +754,12 @@ export function findCrossings(e: Evaluator, grid: CrossingGrid): Crossings {
       }
       ph = Math.atan2(ai, ar) - Math.atan2(bi, br);
     } else {
-      // as lnMagPhaseInto, including its fallback to the log-sum form
-      const m = hypot(ar, ai) / hypot(br, bi);
-      if (!(m > 0) || !Number.isFinite(m)) {
-        evalInto(e, x, y);
-        lns[i] = (outDb * Math.LN10) / 20;
-        sign[i] = Math.sign(lns[i]);
-        ph = outDeg / DEG;
-      } else {
-        sign[i] = m > 1 ? 1 : m < 1 ? -1 : 0;
-        ph = Math.atan2(ai, ar) - Math.atan2(bi, br);
-      }
+      // squares out of range (rare): ln|L| and ∠L from lnMagPhaseInto itself, with its
+      // fallback to the log-sum form (the sign of ln|L| is that of |v|/|q| − 1)
+      lnMagPhaseInto(e, x, y, WANT_BOTH);
+      lns[i] = lmLn;
+      sign[i] = Math.sign(lmLn);
+      ph = lmPh;
     }
     const prev = i > 0 ? phs[i - 1] : ph;
     phs[i] = prev + wrapPi(ph - prev);
